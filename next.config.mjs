@@ -1,8 +1,8 @@
 /** @type {import('next').NextConfig} */
 const nextConfig = {
   reactStrictMode: true,
-  // pg and the AWS SDK are server-only and must not be bundled.
-  serverExternalPackages: ["pg"],
+  // pg, pg-boss and the AWS SDK are server-only and must not be bundled.
+  serverExternalPackages: ["pg", "pg-boss"],
 };
 
 export default nextConfig;

@@ -14,7 +14,8 @@ export default defineConfig({
         test: { name: "unit", include: ["tests/unit/**/*.test.ts"], environment: "node" },
       },
       {
-        resolve: { alias },
+        // Route handlers and queries import "server-only", which throws outside React server code; here it is a no-op.
+        resolve: { alias: { ...alias, "server-only": path.resolve(import.meta.dirname, "node_modules/server-only/empty.js") } },
         test: {
           name: "integration",
           include: ["tests/integration/**/*.test.ts"],

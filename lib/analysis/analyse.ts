@@ -80,7 +80,7 @@ export function analyseTrack(track: Track, options: AnalysisOptions = {}): Analy
   const scale = resolveScale(input.calibration, uniform);
   const { lift, view } = input;
   const side = view === "side" ? nearerSide(input) : null;
-  const kin = buildKinematics({ uniform, scale, lift, view, side, cutoffHz: opts.cutoffHz ?? DEFAULT_CUTOFF_HZ });
+  const kin = buildKinematics({ uniform, scale, lift, view, side, cutoffHz: opts.cutoffHz ?? DEFAULT_CUTOFF_HZ, observed: resampled });
   const hasBar = kin.bar.valid.some(Boolean);
   const phases = hasBar && kin.times.length >= MIN_SAMPLES ? detectReps(lift, kin.times, kin.bar.y, kin.bar.vy, kin.bar.yRaw) : [];
   const ctx: RepContext = { kin, lift, view, side: view === "side" ? sideAngles(kin) : null, front: view === "front" ? frontMeasures(kin) : null };

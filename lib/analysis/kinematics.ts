@@ -10,7 +10,7 @@ import type { CameraView, Lift } from "./track";
 export type BarSource = "tracked" | "pose-estimate";
 
 export interface BarMotion extends Signal {
-  /** Height before smoothing (metres, up), for fitting phase edges. */
+  /** Height before smoothing (metres, up), for fitting phase edges; NaN where the bar was not seen (a bridged gap). */
   yRaw: number[];
   vx: number[];
   vy: number[];
@@ -111,14 +111,22 @@ export interface KinematicsInput {
   view: CameraView;
   side: Side | null;
   cutoffHz: number;
+  /** The same track before gaps were bridged; without it every sample of yRaw counts as seen. */
+  observed?: UniformTrack;
 }
 
-export function buildKinematics({ uniform, scale, lift, view, side, cutoffHz: requested }: KinematicsInput): Kinematics {
+/** Unsmoothed bar height in metres (up), NaN where the observed track had no sample. */
+function rawHeight(barPx: Channel, seen: Channel | null, mpp: number): number[] {
+  return barPx.y.map((v, i) => (seen === null || seen.valid[i] ? -v * mpp : NaN));
+}
+
+export function buildKinematics({ uniform, scale, lift, view, side, cutoffHz: requested, observed }: KinematicsInput): Kinematics {
   const { sampleRateHz, times } = uniform;
   const cutoffHz = effectiveCutoffHz(requested, sampleRateHz);
   const mpp = scale.metresPerPixel;
   const tracked = uniform.bar.valid.some(Boolean);
   const barPx = tracked ? uniform.bar : poseBarChannel(uniform, lift, view, side);
+  const barSeen = observed ? (tracked ? observed.bar : poseBarChannel(observed, lift, view, side)) : null;
   const smooth = smoother(sampleRateHz, cutoffHz);
   let joints: Partial<Record<JointName, Signal>> = {};
   for (const name of usedJoints(uniform, view, side)) {
@@ -141,7 +149,7 @@ export function buildKinematics({ uniform, scale, lift, view, side, cutoffHz: re
     sampleRateHz,
     cutoffHz,
     savgolWindow,
-    bar: { ...bar, yRaw: barPx ? barPx.y.map((v) => -v * mpp) : bar.y, vx: derive(bar.x), vy, ay: derive(vy) },
+    bar: { ...bar, yRaw: barPx ? rawHeight(barPx, barSeen, mpp) : bar.y, vx: derive(bar.x), vy, ay: derive(vy) },
     barSource: tracked ? "tracked" : "pose-estimate",
     joints,
     side,

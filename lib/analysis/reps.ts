@@ -2,7 +2,7 @@
 // reps start at the top (lowering, optional pause, drive); deadlift reps start on the floor
 // (pull, lockout, lowering). Walk-out, re-racking, breathing and bracing move the bar too little
 // vertically to count; a shallow rep still counts (it is flagged elsewhere).
-import { refineTurns } from "./edges";
+import { refineEdges as fitEdges, type EdgeEstimate } from "./edges";
 import type { Lift } from "./track";
 
 export interface RepPhases {
@@ -219,16 +219,29 @@ function floorStartEdges(s: Signals, c: Candidate, prevTurn: number, nextTurn: n
   };
 }
 
+/** Whether the bar starts or stops moving at each edge. */
+const EDGE_KINDS: Record<(typeof EDGE_KEYS)[number], EdgeEstimate["kind"]> = {
+  eccentricStartS: "start",
+  eccentricEndS: "end",
+  concentricStartS: "start",
+  concentricEndS: "end",
+};
+
+/** Edges in the order the bar passes them: starts and ends alternate through the set. */
+const TOP_START_ORDER = ["eccentricStartS", "eccentricEndS", "concentricStartS", "concentricEndS"] as const;
+const FLOOR_START_ORDER = ["concentricStartS", "concentricEndS", "eccentricStartS", "eccentricEndS"] as const;
+
 /**
- * Moves every edge halfway to its fitted turn time (edges.ts). The velocity-line estimate and the
- * local height fit err largely independently (one reads the speed above the filter's smear, the
- * other the positions at the turn), so their mean is steadier than either.
+ * Replaces every edge by its fitted time (edges.ts). The velocity-line estimate only seeds the
+ * fit: it reads the speed above the filter's smear, which noise moves by tens of milliseconds,
+ * while the fit of the unfiltered heights uses every sample around the stop.
  */
-function refineEdges(times: readonly number[], yRaw: readonly number[], reps: Edges[]): Edges[] {
-  const all = reps.flatMap((r, k) => EDGE_KEYS.map((key) => ({ k, key, t: r[key] }))).sort((a, b) => a.t - b.t);
-  const fitted = refineTurns(times, yRaw, all.map((e) => e.t));
+function refineEdges(lift: Lift, times: readonly number[], yRaw: readonly number[], reps: Edges[]): Edges[] {
+  const order = lift === "deadlift" ? FLOOR_START_ORDER : TOP_START_ORDER;
+  const all = reps.flatMap((r, k) => order.map((key) => ({ k, key, t: r[key], kind: EDGE_KINDS[key] })));
+  const fitted = fitEdges(times, yRaw, all);
   const out = reps.map((r) => ({ ...r }));
-  all.forEach((e, i) => (out[e.k][e.key] = (e.t + fitted[i]) / 2));
+  all.forEach((e, i) => (out[e.k][e.key] = fitted[i]));
   return out;
 }
 
@@ -283,7 +296,7 @@ export function detectReps(lift: Lift, times: readonly number[], y: readonly num
     const nextTurn = k < found.length - 1 ? found[k + 1].turn : times.length - 1;
     return edgesOf(signals, c, prevTurn, nextTurn) ?? [];
   });
-  const final = yRaw ? refineEdges(times, yRaw, edges) : edges;
+  const final = yRaw ? refineEdges(lift, times, yRaw, edges) : edges;
   const reps: RepPhases[] = [];
   for (const e of final) reps.push(phases(lift, times, y, e, reps[reps.length - 1]));
   return reps;

@@ -1,0 +1,21 @@
+// GET /api/sets: the sets the viewer may read (filters athleteId, teamId); POST /api/sets: record a set's metadata.
+import { requireAthleteAccess, requireAthleteOf, requireSession, requireTeamMember } from "@/lib/access";
+import { parseOrThrow, readJson, withErrors } from "@/lib/errors";
+import { createSetSchema, setListQuerySchema } from "@/lib/validation/set";
+import { createSet, listSets } from "@/db/queries/sets";
+
+export const GET = withErrors(async (request: Request) => {
+  const viewer = await requireSession(request);
+  const query = Object.fromEntries(new URL(request.url).searchParams);
+  const filters = parseOrThrow(setListQuerySchema, query, "set");
+  if (filters.teamId) await requireTeamMember(viewer, filters.teamId);
+  if (filters.athleteId) await requireAthleteAccess(viewer, filters.athleteId);
+  return Response.json({ sets: await listSets(viewer, filters) });
+});
+
+export const POST = withErrors(async (request: Request) => {
+  const viewer = await requireSession(request);
+  const data = parseOrThrow(createSetSchema, await readJson(request, "set"), "set");
+  if (data.teamId) await requireAthleteOf(viewer, data.teamId);
+  return Response.json({ set: await createSet(viewer.userId, data) }, { status: 201 });
+});

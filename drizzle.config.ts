@@ -1,0 +1,12 @@
+// drizzle-kit settings: `npm run db:generate` writes SQL migrations from db/schema.ts into drizzle/ (committed).
+import { defineConfig } from "drizzle-kit";
+import { databaseUrl } from "./lib/dev/database-url";
+
+export default defineConfig({
+  dialect: "postgresql",
+  schema: "./db/schema.ts",
+  out: "./drizzle",
+  dbCredentials: { url: databaseUrl() },
+  strict: true,
+  verbose: true,
+});

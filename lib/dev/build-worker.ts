@@ -1,0 +1,35 @@
+// Bundles the analysis Web Worker (workers/analyse-worker.ts, with tfjs and the pose models' code) into
+// public/workers/analyse-worker.js with esbuild. Next's bundler cannot bundle pose-detection's optional
+// MediaPipe import, so the worker is built apart and the page loads it by URL. Runs before `next build`
+// and `next dev` (lib/dev/start.ts, the browser tests' global setup); `tsx lib/dev/build-worker.ts` runs it alone.
+import path from "node:path";
+import { pathToFileURL } from "node:url";
+import { build } from "esbuild";
+
+const repoRoot = path.resolve(import.meta.dirname, "../..");
+
+/** Where the page loads the worker from (ANALYSIS_WORKER_URL in lib/client/analysis-runner.ts). */
+const ANALYSIS_WORKER_PATH = "workers/analyse-worker.js";
+
+export async function buildAnalysisWorker(): Promise<string> {
+  const outfile = path.join(repoRoot, "public", ANALYSIS_WORKER_PATH);
+  await build({
+    entryPoints: [path.join(repoRoot, "workers/analyse-worker.ts")],
+    outfile,
+    bundle: true,
+    format: "esm",
+    platform: "browser",
+    target: "es2022",
+    minify: true,
+    sourcemap: false,
+    tsconfig: path.join(repoRoot, "tsconfig.json"),
+    // As Next does for client code: in the browser, environment variables other than NODE_ENV read as undefined.
+    define: { "process.env.NODE_ENV": '"production"', "process.env": "{}" },
+    logLevel: "warning",
+  });
+  return outfile;
+}
+
+if (process.argv[1] && import.meta.url === pathToFileURL(process.argv[1]).href) {
+  console.log(`[plumbline] analysis worker bundled: ${path.relative(repoRoot, await buildAnalysisWorker())}`);
+}

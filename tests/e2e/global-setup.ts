@@ -1,0 +1,55 @@
+// Browser tests run against the production build, on a fresh database, with the local fakes in-process.
+import { spawn, spawnSync, type ChildProcess } from "node:child_process";
+import path from "node:path";
+import type {} from "vitest";
+import type { TestProject } from "vitest/node";
+import { freshTestDatabase } from "@/lib/dev/test-database";
+import { freePort, waitForHttp } from "@/lib/dev/ports";
+import { startFakes } from "@/lib/dev/fakes";
+import { spawnJobRunner } from "@/lib/jobs/spawn";
+import { buildAnalysisWorker } from "@/lib/dev/build-worker";
+import { ensureModels } from "@/lib/dev/models";
+
+declare module "vitest" {
+  export interface ProvidedContext {
+    baseUrl: string;
+    mailUrl: string;
+    databaseUrl: string;
+  }
+}
+
+const repoRoot = path.resolve(import.meta.dirname, "../..");
+
+function buildApp(env: NodeJS.ProcessEnv): void {
+  if (process.env.PLUMBLINE_SKIP_BUILD === "1") return;
+  const result = spawnSync("npx", ["next", "build"], { cwd: repoRoot, env, stdio: "inherit" });
+  if (result.status !== 0) throw new Error("next build failed");
+}
+
+export default async function setup(project: TestProject): Promise<() => Promise<void>> {
+  const databaseUrl = await freshTestDatabase("plumbline_e2e");
+  const fakes = await startFakes({ ephemeral: true });
+  const port = await freePort();
+  const baseUrl = `http://127.0.0.1:${port}`;
+  const env = { ...process.env, ...fakes.env, DATABASE_URL: databaseUrl, BETTER_AUTH_URL: baseUrl, NODE_ENV: "production" as const };
+  // The worker and the pose models are served from public/: both must be there before `next build`.
+  await ensureModels();
+  await buildAnalysisWorker();
+  buildApp(env);
+  const server: ChildProcess = spawn("npx", ["next", "start", "-H", "127.0.0.1", "-p", String(port)], {
+    cwd: repoRoot,
+    env,
+    stdio: ["ignore", "inherit", "inherit"],
+    detached: true,
+  });
+  const jobs = spawnJobRunner(env);
+  await waitForHttp(`${baseUrl}/`, 60_000);
+  project.provide("baseUrl", baseUrl);
+  project.provide("mailUrl", fakes.mailUrl);
+  project.provide("databaseUrl", databaseUrl);
+  return async () => {
+    if (server.pid) process.kill(-server.pid, "SIGTERM");
+    jobs.kill("SIGTERM");
+    await fakes.stop();
+  };
+}

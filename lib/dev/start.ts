@@ -24,7 +24,7 @@ await seedDemoData(url);
 const fakes = await startFakes({ ephemeral: false });
 log(`mail fake: read sent mails at ${fakes.mailUrl}`);
 
-const appEnv = { ...process.env, ...fakes.env, DATABASE_URL: url };
+const appEnv = { ...process.env, ...fakes.env, DATABASE_URL: url, NEXT_TELEMETRY_DISABLED: "1" };
 const jobs = spawnJobRunner(appEnv);
 const app = spawn("npx", ["next", "dev", "-H", "127.0.0.1", "-p", "3000"], {
   stdio: "inherit",

@@ -9,11 +9,11 @@ import { nearerSide } from "./orientation";
 import { frontMeasures, sideAngles } from "./posture";
 import { measureRep, type RepContext } from "./rep-measures";
 import { detectReps } from "./reps";
-import { DEFAULT_MAX_GAP_S, DEFAULT_MIN_SCORE, resampleTrack } from "./resample";
+import { DEFAULT_MAX_GAP_S, DEFAULT_MIN_SCORE, medianFrameIntervalS, resampleTrack } from "./resample";
 import { analysisResultSchema, ENGINE_VERSION, type AnalysisResult, type RepResult } from "./result";
 import { repSeries } from "./series";
 import { measureSet } from "./set-measures";
-import { median, valueAt } from "./timeline";
+import { valueAt } from "./timeline";
 import { parseTrack, type Track } from "./track";
 
 /** Low-pass cutoff for bar and joint positions (Winter, Biomechanics and Motor Control of Human Movement: about 6 Hz for gross limb motion). */
@@ -47,11 +47,6 @@ const OUTLIER_FLOOR_DIAGONAL_SHARE = 0.005;
 /** Up to this many frame intervals the resampler's straight-line bridge is kept (one lost frame). */
 const LINEAR_BRIDGE_INTERVALS = 2.5;
 
-function medianFrameIntervalS(track: Track): number {
-  const intervals = track.frames.slice(1).map((f, i) => f.t - track.frames[i].t);
-  return intervals.length > 0 ? median(intervals) : 1 / track.fps;
-}
-
 /** Bad analysis options; the message names the option and what is wrong. */
 export class AnalysisOptionsError extends Error {
   constructor(message: string) {
@@ -67,8 +62,13 @@ function parseOptions(options: unknown): z.output<typeof analysisOptionsSchema> 
   throw new AnalysisOptionsError(`options.${issue.path.join(".") || "(root)"}: ${issue.message}`);
 }
 
-export function analyseTrack(track: Track, options: AnalysisOptions = {}): AnalysisResult {
-  const input = parseTrack(track);
+/** Validates the track (an object or its JSON text; throws TrackInputError) and analyses it. */
+export function analyseTrack(track: unknown, options: AnalysisOptions = {}): AnalysisResult {
+  return analyseParsedTrack(parseTrack(track), options);
+}
+
+/** Analyses a track that parseTrack has already returned, without validating it again. */
+export function analyseParsedTrack(input: Track, options: AnalysisOptions = {}): AnalysisResult {
   const opts = parseOptions(options);
   const minScore = opts.minScore ?? DEFAULT_MIN_SCORE;
   const maxGapS = opts.maxGapS ?? DEFAULT_MAX_GAP_S;
@@ -82,7 +82,7 @@ export function analyseTrack(track: Track, options: AnalysisOptions = {}): Analy
   const side = view === "side" ? nearerSide(input) : null;
   const kin = buildKinematics({ uniform, scale, lift, view, side, cutoffHz: opts.cutoffHz ?? DEFAULT_CUTOFF_HZ, observed: resampled });
   const hasBar = kin.bar.valid.some(Boolean);
-  const phases = hasBar && kin.times.length >= MIN_SAMPLES ? detectReps(lift, kin.times, kin.bar.y, kin.bar.vy, kin.bar.yRaw) : [];
+  const phases = hasBar && kin.times.length >= MIN_SAMPLES ? detectReps(lift, kin.times, kin.bar.y, kin.bar.vy, kin.bar.yRaw, kin.bar.seen) : [];
   const ctx: RepContext = { kin, lift, view, side: view === "side" ? sideAngles(kin) : null, front: view === "front" ? frontMeasures(kin) : null };
   const reps = phases.map((p, k) => ({ index: k + 1, ...measureRep(ctx, p), series: repSeries(kin, ctx.side, p) }));
   const starts = phases.map((p) => ({ x: valueAt(kin.times, kin.bar.x, p.startS), y: valueAt(kin.times, kin.bar.y, p.startS) }));

@@ -4,9 +4,10 @@
 //
 // Model around a stop from τ₁ (motion ends) to τ₂ ≥ τ₁ (motion starts again), velocity zero at
 // both: y = y0 + a₋d² + c₋d⁴ for d = t − τ₁ < 0, y0 between τ₁ and τ₂, and y0 + a₊d² + c₊d⁴ for
-// d = t − τ₂ > 0. τ₁ = τ₂ is a turn without a pause; a side with a = c = 0 is a bar at rest. Even
-// powers only, because odd ones would let the curve mimic a shifted turn. The times are searched
-// on a grid a quarter sample apart and the best one is refined by a parabola through its error.
+// d = t − τ₂ > 0. τ₁ = τ₂ is a turn without a pause (a touch-and-go bottom); a lone edge has rest
+// on its far side (τ₁ = −∞ before a start, τ₂ = +∞ after an end). Even powers only, because odd
+// ones would let the curve mimic a shifted turn. The times are searched on a grid a quarter
+// sample apart and the best one is refined by a parabola through its error.
 
 /** Parameters of the stop model: y0 and two coefficients per side. */
 const PARAMS = 5;
@@ -17,87 +18,114 @@ export interface EdgeEstimate {
   kind: "start" | "end";
 }
 
-/** Solves the normal equations of a small least-squares problem; null if singular. */
-function solve(m: number[][], r: number[]): number[] | null {
-  const n = r.length;
-  const a = m.map((row, i) => [...row, r[i]]);
-  for (let c = 0; c < n; c++) {
+/**
+ * Scratch space for the normal equations (PARAMS rows of PARAMS + 1: matrix and right-hand side)
+ * and their solution: fitError runs thousands of times per set, so nothing is allocated per call.
+ */
+const WIDTH = PARAMS + 1;
+const system = new Float64Array(PARAMS * WIDTH);
+const solution = new Float64Array(PARAMS);
+
+/** Solves the system in `system` by Gaussian elimination with partial pivoting into `solution`; false if singular. */
+function solve(): boolean {
+  const a = system;
+  for (let c = 0; c < PARAMS; c++) {
     let p = c;
-    for (let i = c + 1; i < n; i++) if (Math.abs(a[i][c]) > Math.abs(a[p][c])) p = i;
-    if (Math.abs(a[p][c]) < 1e-12) return null;
-    [a[c], a[p]] = [a[p], a[c]];
-    for (let i = c + 1; i < n; i++) {
-      const f = a[i][c] / a[c][c];
-      for (let k = c; k <= n; k++) a[i][k] -= f * a[c][k];
+    for (let i = c + 1; i < PARAMS; i++) if (Math.abs(a[i * WIDTH + c]) > Math.abs(a[p * WIDTH + c])) p = i;
+    if (Math.abs(a[p * WIDTH + c]) < 1e-12) return false;
+    if (p !== c) {
+      for (let k = 0; k < WIDTH; k++) {
+        const held = a[c * WIDTH + k];
+        a[c * WIDTH + k] = a[p * WIDTH + k];
+        a[p * WIDTH + k] = held;
+      }
+    }
+    for (let i = c + 1; i < PARAMS; i++) {
+      const f = a[i * WIDTH + c] / a[c * WIDTH + c];
+      for (let k = c; k < WIDTH; k++) a[i * WIDTH + k] -= f * a[c * WIDTH + k];
     }
   }
-  const x = new Array<number>(n).fill(0);
-  for (let i = n - 1; i >= 0; i--) {
-    let s = a[i][n];
-    for (let k = i + 1; k < n; k++) s -= a[i][k] * x[k];
-    x[i] = s / a[i][i];
+  for (let i = PARAMS - 1; i >= 0; i--) {
+    let s = a[i * WIDTH + PARAMS];
+    for (let k = i + 1; k < PARAMS; k++) s -= a[i * WIDTH + k] * solution[k];
+    solution[i] = s / a[i * WIDTH + i];
   }
-  return x;
+  return true;
+}
+
+function setRow(row: number, values: readonly [number, number, number, number, number, number]): void {
+  for (let k = 0; k < WIDTH; k++) system[row * WIDTH + k] = values[k];
 }
 
 /** Squared error of the best fit with the stop from tauEnd to tauStart over samples first..last. */
-function fitError(times: readonly number[], y: readonly number[], tauEnd: number, tauStart: number, first: number, last: number, weight: (t: number) => number = () => 1, quartic: [boolean, boolean] = [true, true]): number {
-  // Normal equations for the columns 1, d₋², d₋⁴, d₊², d₊⁴ (a side's columns are zero outside it).
-  const side = [new Float64Array(6), new Float64Array(6)]; // Σd², Σd⁴, Σd⁶, Σd⁸, Σv·d², Σv·d⁴ per side
+function fitError(times: readonly number[], y: readonly number[], tauEnd: number, tauStart: number, first: number, last: number): number {
+  // Normal equations for the columns 1, d₋², d₋⁴, d₊², d₊⁴ (a side's columns are zero outside it):
+  // Σd², Σd⁴, Σd⁶, Σd⁸, Σv·d², Σv·d⁴ before the stop (a) and after it (b).
+  let [a0, a1, a2, a3, a4, a5] = [0, 0, 0, 0, 0, 0];
+  let [b0, b1, b2, b3, b4, b5] = [0, 0, 0, 0, 0, 0];
   let n = 0;
   let sumV = 0;
   let sumV2 = 0;
-  // Heights relative to a sample of the window keep the squared-error sum free of cancellation.
-  let offset = NaN;
-  for (let i = first; i <= last && Number.isNaN(offset); i++) offset = y[i];
+  // Heights relative to the first sample keep the squared-error sum free of cancellation.
+  const offset = y[first];
   for (let i = first; i <= last; i++) {
-    // Samples inside a bridged gap (NaN) were not seen and carry no information.
-    if (Number.isNaN(y[i])) continue;
     const v = y[i] - offset;
     const t = times[i];
-    const w = weight(t);
-    n += w;
-    sumV += w * v;
-    sumV2 += w * v * v;
+    n++;
+    sumV += v;
+    sumV2 += v * v;
     const d = t < tauEnd ? t - tauEnd : t > tauStart ? t - tauStart : 0;
     if (d === 0) continue;
     const d2 = d * d;
-    const sd = d < 0 ? 0 : 1;
-    const d4 = quartic[sd] ? d2 * d2 : 0;
-    const acc = side[sd];
-    acc[0] += w * d2;
-    acc[1] += w * d4;
-    acc[2] += w * d4 * d2;
-    acc[3] += w * d4 * d4;
-    acc[4] += w * v * d2;
-    acc[5] += w * v * d4;
+    const d4 = d2 * d2;
+    if (d < 0) {
+      a0 += d2;
+      a1 += d4;
+      a2 += d4 * d2;
+      a3 += d4 * d4;
+      a4 += v * d2;
+      a5 += v * d4;
+    } else {
+      b0 += d2;
+      b1 += d4;
+      b2 += d4 * d2;
+      b3 += d4 * d4;
+      b4 += v * d2;
+      b5 += v * d4;
+    }
   }
-  const [a, b] = side;
   // A side without samples leaves its columns empty; a tiny ridge keeps the system solvable.
   const ridge = 1e-12;
-  const m = [
-    [n + ridge, a[0], a[1], b[0], b[1]],
-    [a[0], a[1] + ridge, a[2], 0, 0],
-    [a[1], a[2], a[3] + ridge, 0, 0],
-    [b[0], 0, 0, b[1] + ridge, b[2]],
-    [b[1], 0, 0, b[2], b[3] + ridge],
-  ];
-  const r = [sumV, a[4], a[5], b[4], b[5]];
-  const p = solve(m, r);
-  if (!p) return Infinity;
+  setRow(0, [n + ridge, a0, a1, b0, b1, sumV]);
+  setRow(1, [a0, a1 + ridge, a2, 0, 0, a4]);
+  setRow(2, [a1, a2, a3 + ridge, 0, 0, a5]);
+  setRow(3, [b0, 0, 0, b1 + ridge, b2, b4]);
+  setRow(4, [b1, 0, 0, b2, b3 + ridge, b5]);
+  if (!solve()) return Infinity;
   // SSE = vᵀv − pᵀ(Xᵀv) for the least-squares solution.
-  return sumV2 - p.reduce((s, c, k) => s + c * r[k], 0);
+  const r = [sumV, a4, a5, b4, b5];
+  let fitted = 0;
+  for (let k = 0; k < PARAMS; k++) fitted += solution[k] * r[k];
+  return sumV2 - fitted;
 }
 
 /**
- * Largest span of samples used on the moving side of an edge. Within about half a phase a
- * quadratic-plus-quartic follows a smooth start or stop closely, and the fit's precision grows
- * quickly with its span (tuned on the synthetic sets: 0.25 s left twice the timing error).
+ * Each side of a fit spans this share of the time to the neighbouring edge, at most MAX_SIDE_S:
+ * within about 40 % of a phase a quadratic-plus-quartic follows a smooth start or stop closely
+ * (further out a sticking dip bends the curve away), and the fit's precision grows quickly with
+ * its span. Tuned on the synthetic sets: spans of a quarter second left about twice the timing error.
  */
-const MAX_SIDE_S = Number(process.env.MAXSIDE ?? 0.5);
-const SIDE_FRACTION = Number(process.env.SIDEFRAC ?? 0.5);
+const SIDE_SHARE = 0.4;
+const MAX_SIDE_S = 0.5;
+/**
+ * A side is widened by the length of bridged samples inside it (gaps.ts), up to this share of
+ * the time to the neighbouring edge, so a lost stretch of the track next to an edge does not
+ * leave the fit with too few seen samples. The bridged samples themselves stay in the fit: their
+ * cubic keeps the speed at the gap's edges, which is the best guess of the motion inside.
+ */
+const MAX_WIDENED_SHARE = 0.75;
 /** An end and the next start closer than this are fitted together as one stop (a touch-and-go bottom, a short lockout). */
-export const JOINT_STOP_S = Number(process.env.JOINT ?? 0.4);
+export const JOINT_STOP_S = 0.4;
 /** An edge may move at most this share of its window side from the first estimate. */
 const SEARCH_SHARE = 0.3;
 
@@ -154,53 +182,35 @@ function minimise(f: (tau: number) => number, lo: number, hi: number, step: numb
 }
 
 /**
- * Refined times for a sorted list of edge estimates (every phase start and end of the set). Each
- * fit uses samples up to halfway to the neighbouring edges (at most MAX_SIDE_S), so a pause
- * between two stops is fitted as rest and neighbouring phases do not leak in. An end and a start
- * closer than JOINT_STOP_S share one fit with a rest between them; both times are searched in
- * turn (two rounds), which settles because the two sides of the fit barely interact.
+ * Refined times for the edge estimates of a set, in the order the bar passes them (starts and ends
+ * alternating). `seen` marks samples observed rather than bridged (all when omitted). Each fit
+ * spans a share of the time to the neighbouring edges, so a pause between two stops is fitted as
+ * rest and neighbouring phases do not leak in. An end and a start closer than JOINT_STOP_S share
+ * one fit with a rest between them; both times are searched in turn (two rounds), which settles
+ * because the two sides of the fit barely interact.
  */
-export function refineEdges(times: readonly number[], y: readonly number[], estimates: readonly EdgeEstimate[]): number[] {
-  let out = estimates.map((e) => e.t);
-  for (let pass = 0; pass < Number(process.env.PASSES ?? 1); pass++) out = refinePass(times, y, estimates.map((e, i) => ({ ...e, t: out[i] })));
-  return out;
-}
-
-function refinePass(times: readonly number[], y: readonly number[], estimates: readonly EdgeEstimate[]): number[] {
+export function refineEdges(times: readonly number[], y: readonly number[], estimates: readonly EdgeEstimate[], seen?: readonly boolean[]): number[] {
   const refined = estimates.map((e) => e.t);
   if (times.length < PARAMS + 2 || estimates.length === 0) return refined;
   const dt = times[1] - times[0];
   const index = (t: number) => Math.min(times.length - 1, Math.max(0, Math.round((t - times[0]) / dt)));
+  const bridgedS = (from: number, to: number) => {
+    let count = 0;
+    if (seen) for (let i = index(from); i <= index(to); i++) if (!seen[i]) count++;
+    return count * dt;
+  };
   const stops = stopsOf(estimates);
   stops.forEach((stop, k) => {
     const [tEnd, tStart] = stopSpan(stop, estimates);
-    const before = k > 0 ? stopSpan(stops[k - 1], estimates)[1] : -Infinity;
-    const after = k < stops.length - 1 ? stopSpan(stops[k + 1], estimates)[0] : Infinity;
-    const unseen = (from: number, to: number) => {
-      let c = 0;
-      for (let i = index(from); i <= index(to); i++) if (Number.isNaN(y[i])) c++;
-      return c * dt;
-    };
-    const GAPX = Number(process.env.GAPX ?? 0);
-    let left = Math.min(MAX_SIDE_S, (tEnd - before) * SIDE_FRACTION);
-    let right = Math.min(MAX_SIDE_S, (after - tStart) * SIDE_FRACTION);
-    if (GAPX) {
-      left = Math.min(left + unseen(tEnd - left, tEnd), GAPX * (tEnd - before));
-      right = Math.min(right + unseen(tStart, tStart + right), GAPX * (after - tStart));
-    }
+    const toBefore = tEnd - (k > 0 ? stopSpan(stops[k - 1], estimates)[1] : -Infinity);
+    const toAfter = (k < stops.length - 1 ? stopSpan(stops[k + 1], estimates)[0] : Infinity) - tStart;
+    const baseLeft = Math.min(MAX_SIDE_S, SIDE_SHARE * toBefore);
+    const baseRight = Math.min(MAX_SIDE_S, SIDE_SHARE * toAfter);
+    const left = Math.min(baseLeft + bridgedS(tEnd - baseLeft, tEnd), MAX_WIDENED_SHARE * toBefore);
+    const right = Math.min(baseRight + bridgedS(tStart, tStart + baseRight), MAX_WIDENED_SHARE * toAfter);
     const [first, last] = [index(tEnd - left), index(tStart + right)];
     if (last - first < PARAMS + 2) return;
-    const K = process.env.KERNEL ?? "none";
-    const weight = (t: number) => {
-      const u = t < tEnd ? (tEnd - t) / left : t > tStart ? (t - tStart) / right : 0;
-      if (K === "epan") return Math.max(0, 1 - u * u);
-      if (K === "tri") return Math.max(0, (1 - u ** 3)) ** 3;
-      if (K === "lin") return Math.max(0, 1 - u);
-      return 1;
-    };
-    const QG = Number(process.env.QGAP ?? 0);
-    const quartic: [boolean, boolean] = QG ? [unseen(tEnd - left, tEnd + 0.1) < QG, unseen(tStart - 0.1, tStart + right) < QG] : [true, true];
-    const error = ([e, s]: Taus) => fitError(times, y, e, s, first, last, weight, quartic);
+    const error = ([e, s]: Taus) => fitError(times, y, e, s, first, last);
     const taus = fitStop(error, stop, [tEnd, tStart], [SEARCH_SHARE * left, SEARCH_SHARE * right], dt / 4);
     if (stop.end !== null) refined[stop.end] = taus[0];
     if (stop.start !== null) refined[stop.start] = taus[1];

@@ -65,9 +65,9 @@ export function butter(order: number, cutoffHz: number, sampleRateHz: number): {
 }
 
 /** Direct-form II transposed IIR filter (scipy.signal.lfilter with initial state). */
-function lfilter(b: number[], a: number[], x: number[], zi: number[]): number[] {
-  const z = zi.slice();
-  const y = new Array<number>(x.length);
+function lfilter(b: number[], a: number[], x: ArrayLike<number>, zi: number[]): Float64Array {
+  const z = Float64Array.from(zi);
+  const y = new Float64Array(x.length);
   const n = b.length;
   for (let i = 0; i < x.length; i++) {
     const xi = x[i];
@@ -132,15 +132,17 @@ export function filtfilt(b: number[], a: number[], x: number[]): number[] {
   const coeffs = normaliseCoefficients(b, a);
   const edge = Math.min(3 * coeffs.b.length, x.length - 1);
   const last = x.length - 1;
-  const head = Array.from({ length: edge }, (_, i) => 2 * x[0] - x[edge - i]);
-  const tail = Array.from({ length: edge }, (_, i) => 2 * x[last] - x[last - 1 - i]);
-  const extended = [...head, ...x, ...tail];
+  // Odd extension: the signal, with point-mirrored copies of its ends before and after it.
+  const extended = new Float64Array(x.length + 2 * edge);
+  for (let i = 0; i < edge; i++) extended[i] = 2 * x[0] - x[edge - i];
+  extended.set(x, edge);
+  for (let i = 0; i < edge; i++) extended[edge + x.length + i] = 2 * x[last] - x[last - 1 - i];
   const zi = lfilterZi(coeffs.b, coeffs.a);
   const forward = lfilter(coeffs.b, coeffs.a, extended, zi.map((z) => z * extended[0]));
   forward.reverse();
   const backward = lfilter(coeffs.b, coeffs.a, forward, zi.map((z) => z * forward[0]));
   backward.reverse();
-  return backward.slice(edge, edge + x.length);
+  return Array.from(backward.subarray(edge, edge + x.length));
 }
 
 /**

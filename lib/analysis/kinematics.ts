@@ -10,8 +10,10 @@ import type { CameraView, Lift } from "./track";
 export type BarSource = "tracked" | "pose-estimate";
 
 export interface BarMotion extends Signal {
-  /** Height before smoothing (metres, up), for fitting phase edges; NaN where the bar was not seen (a bridged gap). */
+  /** Height before smoothing (metres, up), for fitting phase edges. */
   yRaw: number[];
+  /** Samples where the bar (or the joint standing in for it) was seen rather than bridged across a gap. */
+  seen: boolean[];
   vx: number[];
   vy: number[];
   ay: number[];
@@ -111,13 +113,8 @@ export interface KinematicsInput {
   view: CameraView;
   side: Side | null;
   cutoffHz: number;
-  /** The same track before gaps were bridged; without it every sample of yRaw counts as seen. */
+  /** The same track before gaps were bridged; without it every valid sample counts as seen. */
   observed?: UniformTrack;
-}
-
-/** Unsmoothed bar height in metres (up), NaN where the observed track had no sample. */
-function rawHeight(barPx: Channel, seen: Channel | null, mpp: number): number[] {
-  return barPx.y.map((v, i) => (seen === null || seen.valid[i] ? -v * mpp : NaN));
 }
 
 export function buildKinematics({ uniform, scale, lift, view, side, cutoffHz: requested, observed }: KinematicsInput): Kinematics {
@@ -126,7 +123,7 @@ export function buildKinematics({ uniform, scale, lift, view, side, cutoffHz: re
   const mpp = scale.metresPerPixel;
   const tracked = uniform.bar.valid.some(Boolean);
   const barPx = tracked ? uniform.bar : poseBarChannel(uniform, lift, view, side);
-  const barSeen = observed ? (tracked ? observed.bar : poseBarChannel(observed, lift, view, side)) : null;
+  const barSeen = observed ? (tracked ? observed.bar : poseBarChannel(observed, lift, view, side)) : barPx;
   const smooth = smoother(sampleRateHz, cutoffHz);
   let joints: Partial<Record<JointName, Signal>> = {};
   for (const name of usedJoints(uniform, view, side)) {
@@ -149,7 +146,7 @@ export function buildKinematics({ uniform, scale, lift, view, side, cutoffHz: re
     sampleRateHz,
     cutoffHz,
     savgolWindow,
-    bar: { ...bar, yRaw: barPx ? rawHeight(barPx, barSeen, mpp) : bar.y, vx: derive(bar.x), vy, ay: derive(vy) },
+    bar: { ...bar, yRaw: barPx ? barPx.y.map((v) => -v * mpp) : bar.y, seen: barSeen ? [...barSeen.valid] : [...bar.valid], vx: derive(bar.x), vy, ay: derive(vy) },
     barSource: tracked ? "tracked" : "pose-estimate",
     joints,
     side,

@@ -28,10 +28,12 @@ interface LoadVelocityEquation {
 }
 
 /**
- * General load–velocity equations. No deadlift entry: no deadlift equation
- * could be checked (Benavides-Ubric et al. 2020 and Morán-Navarro et al. 2021
- * publish linear ones whose coefficients were not at hand), and a guessed one
- * would be worse than none.
+ * General load–velocity equations. No deadlift entry: Benavides-Ubric et al.
+ * 2020 (J Sports Sci Med 19:452-459) fitted general first-order equations of
+ * %1RM on MV, MPV and peak velocity over 30-100 % 1RM (R² 0.91-0.93), but
+ * their coefficients could not be read in the paper itself, only as a
+ * second-hand quote; Ruf et al. 2018 (J Strength Cond Res 32(3):681-689) give
+ * individual profiles only. An unchecked equation would be worse than none.
  */
 export const LOAD_VELOCITY_EQUATIONS: Partial<Record<Lift, LoadVelocityEquation>> = {
   squat: {

@@ -236,10 +236,10 @@ const FLOOR_START_ORDER = ["concentricStartS", "concentricEndS", "eccentricStart
  * fit: it reads the speed above the filter's smear, which noise moves by tens of milliseconds,
  * while the fit of the unfiltered heights uses every sample around the stop.
  */
-function refineEdges(lift: Lift, times: readonly number[], yRaw: readonly number[], reps: Edges[]): Edges[] {
+function refineEdges(lift: Lift, times: readonly number[], yRaw: readonly number[], seen: readonly boolean[] | undefined, reps: Edges[]): Edges[] {
   const order = lift === "deadlift" ? FLOOR_START_ORDER : TOP_START_ORDER;
   const all = reps.flatMap((r, k) => order.map((key) => ({ k, key, t: r[key], kind: EDGE_KINDS[key] })));
-  const fitted = fitEdges(times, yRaw, all);
+  const fitted = fitEdges(times, yRaw, all, seen);
   const out = reps.map((r) => ({ ...r }));
   all.forEach((e, i) => (out[e.k][e.key] = fitted[i]));
   return out;
@@ -280,9 +280,17 @@ function phases(lift: Lift, times: readonly number[], y: readonly number[], e: E
 
 /**
  * Reps in time order, from the smoothed bar height y (m, up) and its velocity vy (m/s); with the
- * unsmoothed height yRaw the phase edges are refined by a local fit (edges.ts).
+ * unsmoothed height yRaw the phase edges are refined by a local fit (edges.ts); `seen` marks the
+ * samples of yRaw that were observed rather than bridged across a gap.
  */
-export function detectReps(lift: Lift, times: readonly number[], y: readonly number[], vy: readonly number[], yRaw?: readonly number[]): RepPhases[] {
+export function detectReps(
+  lift: Lift,
+  times: readonly number[],
+  y: readonly number[],
+  vy: readonly number[],
+  yRaw?: readonly number[],
+  seen?: readonly boolean[],
+): RepPhases[] {
   if (times.length < 3) return [];
   const minRom = MIN_REP_ROM_M[lift];
   const first = candidates(lift, y, minRom);
@@ -296,7 +304,7 @@ export function detectReps(lift: Lift, times: readonly number[], y: readonly num
     const nextTurn = k < found.length - 1 ? found[k + 1].turn : times.length - 1;
     return edgesOf(signals, c, prevTurn, nextTurn) ?? [];
   });
-  const final = yRaw ? refineEdges(lift, times, yRaw, edges) : edges;
+  const final = yRaw ? refineEdges(lift, times, yRaw, seen, edges) : edges;
   const reps: RepPhases[] = [];
   for (const e of final) reps.push(phases(lift, times, y, e, reps[reps.length - 1]));
   return reps;

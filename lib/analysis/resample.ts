@@ -2,7 +2,7 @@
 // and each joint): drops low-score points, rejects single-frame outliers,
 // bridges short gaps and marks long ones invalid, so the filters and the rep
 // finder can assume a uniform grid with no NaN.
-import { type JointName, normaliseJointName } from "./joints";
+import { JOINT_NAMES, type JointName, normaliseJointName } from "./joints";
 import type { Track } from "./track";
 
 /** Pixels, y down, one entry per grid time. Never NaN: inside long gaps and outside the seen span values are interpolated or held, with valid = false. */
@@ -42,10 +42,23 @@ const MAD_TO_SD = 1.4826;
 /** Time slack (1 µs, far below any frame interval) for treating a grid time and a frame time as the same instant. */
 const TIME_EPS_S = 1e-6;
 
-interface Sample {
-  t: number;
-  x: number;
-  y: number;
+/** Kept samples of one channel in time order, as parallel arrays (a long track has tens of thousands). */
+interface Samples {
+  t: Float64Array;
+  x: Float64Array;
+  y: Float64Array;
+  length: number;
+}
+
+function emptySamples(capacity: number): Samples {
+  return { t: new Float64Array(capacity), x: new Float64Array(capacity), y: new Float64Array(capacity), length: 0 };
+}
+
+function pushSample(s: Samples, t: number, x: number, y: number): void {
+  s.t[s.length] = t;
+  s.x[s.length] = x;
+  s.y[s.length] = y;
+  s.length++;
 }
 
 export function resampleTrack(track: Track, options: ResampleOptions = {}): UniformTrack {
@@ -57,18 +70,30 @@ export function resampleTrack(track: Track, options: ResampleOptions = {}): Unif
     throw new RangeError(`resampleTrack: sampleRateHz must be a finite number above 0, got ${sampleRateHz}`);
   }
   const times = uniformTimes(track.frames[0].t, track.frames[track.frames.length - 1].t, sampleRateHz);
-  const toChannel = (samples: Sample[]) => interpolateChannel(rejectOutliers(samples, floorPx), times, maxGapS);
+  const toChannel = (samples: Samples) => interpolateChannel(rejectOutliers(samples, floorPx), times, maxGapS);
 
-  const barSamples = track.frames.flatMap((f) => (f.bar && f.bar.score >= minScore ? [{ t: f.t, x: f.bar.x, y: f.bar.y }] : []));
+  const barSamples = emptySamples(track.frames.length);
+  for (const f of track.frames) if (f.bar && f.bar.score >= minScore) pushSample(barSamples, f.t, f.bar.x, f.bar.y);
   const joints: Partial<Record<JointName, Channel>> = {};
   for (const [name, samples] of jointSamples(track, minScore)) joints[name] = toChannel(samples);
   return { sampleRateHz, times, bar: toChannel(barSamples), joints };
 }
 
+/** Median time between consecutive frames, or one frame at the track's fps for a single frame. */
+export function medianFrameIntervalS(track: Track): number {
+  const { frames } = track;
+  if (frames.length < 2) return 1 / track.fps;
+  const intervals = new Float64Array(frames.length - 1);
+  for (let i = 1; i < frames.length; i++) intervals[i - 1] = frames[i].t - frames[i - 1].t;
+  // A typed array sorts numerically, and much faster than an array with a comparator.
+  intervals.sort();
+  const mid = intervals.length >> 1;
+  return intervals.length % 2 ? intervals[mid] : (intervals[mid - 1] + intervals[mid]) / 2;
+}
+
 function defaultSampleRateHz(track: Track): number {
-  const intervals = track.frames.slice(1).map((f, i) => f.t - track.frames[i].t);
-  if (intervals.length === 0) return Math.round(track.fps);
-  return Math.max(1, Math.round(1 / median(intervals)));
+  if (track.frames.length < 2) return Math.round(track.fps);
+  return Math.max(1, Math.round(1 / medianFrameIntervalS(track)));
 }
 
 function uniformTimes(startS: number, endS: number, sampleRateHz: number): number[] {
@@ -76,30 +101,106 @@ function uniformTimes(startS: number, endS: number, sampleRateHz: number): numbe
   return Array.from({ length: count }, (_, i) => startS + i / sampleRateHz);
 }
 
-/** Kept samples per joint in time order; of two points with one name in a frame, the higher score wins. */
-function jointSamples(track: Track, minScore: number): Map<JointName, Sample[]> {
-  const byJoint = new Map<JointName, Sample[]>();
-  for (const frame of track.frames) {
-    const best = new Map<JointName, { x: number; y: number; score: number }>();
-    for (const k of frame.keypoints) {
-      const name = normaliseJointName(k.name);
-      if (name === null || k.score < minScore) continue;
-      const held = best.get(name);
-      if (!held || k.score > held.score) best.set(name, k);
+const JOINT_INDEX = new Map<JointName, number>(JOINT_NAMES.map((name, i) => [name, i]));
+
+/** Kept samples per joint in time order (joints in the order first seen); of two points with one name in a frame, the higher score wins. */
+function jointSamples(track: Track, minScore: number): Map<JointName, Samples> {
+  const count = JOINT_NAMES.length;
+  const frames = track.frames;
+  const lists: (Samples | undefined)[] = new Array(count);
+  const firstSeen: number[] = [];
+  // Best point per joint in the current frame; `frameOf` says which frame a slot was last written in.
+  const frameOf = new Int32Array(count).fill(-1);
+  const score = new Float64Array(count);
+  const bestX = new Float64Array(count);
+  const bestY = new Float64Array(count);
+  const touched = new Int32Array(count);
+  // Joint index per keypoint name (-1: not used); a track repeats a few names in every frame.
+  const indexOf = new Map<string, number>();
+  for (let f = 0; f < frames.length; f++) {
+    const keypoints = frames[f].keypoints;
+    let touchedCount = 0;
+    for (let p = 0; p < keypoints.length; p++) {
+      const k = keypoints[p];
+      if (k.score < minScore) continue;
+      let j = indexOf.get(k.name);
+      if (j === undefined) {
+        const name = normaliseJointName(k.name);
+        indexOf.set(k.name, (j = name === null ? -1 : (JOINT_INDEX.get(name) as number)));
+      }
+      if (j < 0 || (frameOf[j] === f && k.score <= score[j])) continue;
+      if (frameOf[j] !== f) touched[touchedCount++] = j;
+      frameOf[j] = f;
+      score[j] = k.score;
+      bestX[j] = k.x;
+      bestY[j] = k.y;
     }
-    for (const [name, k] of best) {
-      const list = byJoint.get(name) ?? [];
-      list.push({ t: frame.t, x: k.x, y: k.y });
-      byJoint.set(name, list);
+    for (let q = 0; q < touchedCount; q++) {
+      const j = touched[q];
+      let list = lists[j];
+      if (!list) {
+        lists[j] = list = emptySamples(frames.length - f);
+        firstSeen.push(j);
+      }
+      pushSample(list, frames[f].t, bestX[j], bestY[j]);
     }
   }
-  return byJoint;
+  return new Map(firstSeen.map((j) => [JOINT_NAMES[j], lists[j] as Samples]));
 }
 
-function median(values: number[]): number {
-  const sorted = [...values].sort((a, b) => a - b);
-  const mid = sorted.length >> 1;
-  return sorted.length % 2 ? sorted[mid] : (sorted[mid - 1] + sorted[mid]) / 2;
+/**
+ * Hampel test of every sample of one axis: true where the sample lies further from the median of
+ * its window (HAMPEL_HALF_WINDOW samples each side, fewer at the ends) than HAMPEL_SIGMAS robust
+ * SDs and than floorPx. The window slides one sample at a time, so it is kept sorted by one
+ * insertion and one removal per step instead of being sorted afresh.
+ */
+function hampelOutliers(v: Float64Array, length: number, floorPx: number): Uint8Array {
+  const out = new Uint8Array(length);
+  const sorted = new Float64Array(2 * HAMPEL_HALF_WINDOW + 1);
+  let m = 0;
+  for (let i = -HAMPEL_HALF_WINDOW - 1; i < length; i++) {
+    if (i >= 0) {
+      const half = m >> 1;
+      const centre = m % 2 ? sorted[half] : (sorted[half - 1] + sorted[half]) / 2;
+      const offset = Math.abs(v[i] - centre);
+      // The threshold is never below the floor, so most samples need no spread at all.
+      if (offset > floorPx && offset > HAMPEL_SIGMAS * (MAD_TO_SD * medianDeviation(sorted, m, centre))) out[i] = 1;
+    }
+    // Slide: the sample HAMPEL_HALF_WINDOW behind leaves, the one HAMPEL_HALF_WINDOW + 1 ahead comes in.
+    if (i >= HAMPEL_HALF_WINDOW) {
+      const leaving = v[i - HAMPEL_HALF_WINDOW];
+      let j = 0;
+      while (sorted[j] !== leaving) j++;
+      for (m--; j < m; j++) sorted[j] = sorted[j + 1];
+    }
+    const coming = i + HAMPEL_HALF_WINDOW + 1;
+    if (coming >= 0 && coming < length) {
+      const value = v[coming];
+      let j = m++;
+      for (; j > 0 && sorted[j - 1] > value; j--) sorted[j] = sorted[j - 1];
+      sorted[j] = value;
+    }
+  }
+  return out;
+}
+
+/** Median of |sorted[k] − centre| over the first m entries: the deviations below and above the centre are each in order, so they are merged. */
+function medianDeviation(sorted: Float64Array, m: number, centre: number): number {
+  let below = 0;
+  while (below < m && sorted[below] < centre) below++;
+  let above = below;
+  below--;
+  const wanted = m >> 1;
+  let previous = 0;
+  for (let k = 0; ; k++) {
+    const fromBelow = below >= 0 ? centre - sorted[below] : Infinity;
+    const fromAbove = above < m ? sorted[above] - centre : Infinity;
+    const next = fromBelow <= fromAbove ? fromBelow : fromAbove;
+    if (fromBelow <= fromAbove) below--;
+    else above++;
+    if (k === wanted) return m % 2 ? next : (previous + next) / 2;
+    previous = next;
+  }
 }
 
 /**
@@ -108,42 +209,44 @@ function median(values: number[]): number {
  * axis is dropped. The median follows monotone motion exactly, so only
  * isolated jumps (a keypoint snapping to the other leg, a tracker slip) go.
  */
-function rejectOutliers(samples: Sample[], floorPx: number): Sample[] {
-  const isOutlier = (i: number, axis: "x" | "y") => {
-    const window = samples
-      .slice(Math.max(0, i - HAMPEL_HALF_WINDOW), i + HAMPEL_HALF_WINDOW + 1)
-      .map((s) => s[axis]);
-    const centre = median(window);
-    const spread = MAD_TO_SD * median(window.map((v) => Math.abs(v - centre)));
-    return Math.abs(samples[i][axis] - centre) > Math.max(HAMPEL_SIGMAS * spread, floorPx);
-  };
-  if (samples.length < 3) return samples;
-  return samples.filter((_, i) => !isOutlier(i, "x") && !isOutlier(i, "y"));
+function rejectOutliers(samples: Samples, floorPx: number): Samples {
+  const n = samples.length;
+  if (n < 3) return samples;
+  const outX = hampelOutliers(samples.x, n, floorPx);
+  const outY = hampelOutliers(samples.y, n, floorPx);
+  if (outX.indexOf(1) < 0 && outY.indexOf(1) < 0) return samples;
+  const kept = emptySamples(n);
+  for (let i = 0; i < n; i++) if (!outX[i] && !outY[i]) pushSample(kept, samples.t[i], samples.x[i], samples.y[i]);
+  return kept;
 }
 
 /** Linear interpolation onto the grid; a span between kept samples longer than maxGapS is invalid, and so is anything before the first or after the last. */
-function interpolateChannel(samples: Sample[], times: number[], maxGapS: number): Channel {
-  const channel: Channel = { x: [], y: [], valid: [] };
+function interpolateChannel(samples: Samples, times: number[], maxGapS: number): Channel {
+  const count = times.length;
+  const channel: Channel = { x: new Array<number>(count), y: new Array<number>(count), valid: new Array<boolean>(count) };
+  const { t: st, x: sx, y: sy, length } = samples;
   let next = 0;
-  for (const t of times) {
-    while (next < samples.length && samples[next].t < t - TIME_EPS_S) next++;
-    const after = samples[next];
-    const before = samples[next - 1];
-    if (after && Math.abs(after.t - t) <= TIME_EPS_S) {
-      push(channel, after.x, after.y, true);
-    } else if (after && before) {
-      const w = (t - before.t) / (after.t - before.t);
-      push(channel, before.x + w * (after.x - before.x), before.y + w * (after.y - before.y), after.t - before.t <= maxGapS + TIME_EPS_S);
+  for (let i = 0; i < count; i++) {
+    const t = times[i];
+    while (next < length && st[next] < t - TIME_EPS_S) next++;
+    const hasAfter = next < length;
+    const hasBefore = next > 0;
+    if (hasAfter && Math.abs(st[next] - t) <= TIME_EPS_S) {
+      set(channel, i, sx[next], sy[next], true);
+    } else if (hasAfter && hasBefore) {
+      const b = next - 1;
+      const w = (t - st[b]) / (st[next] - st[b]);
+      set(channel, i, sx[b] + w * (sx[next] - sx[b]), sy[b] + w * (sy[next] - sy[b]), st[next] - st[b] <= maxGapS + TIME_EPS_S);
     } else {
-      const held = after ?? before;
-      push(channel, held?.x ?? 0, held?.y ?? 0, false);
+      const held = hasAfter ? next : next - 1;
+      set(channel, i, held >= 0 ? sx[held] : 0, held >= 0 ? sy[held] : 0, false);
     }
   }
   return channel;
 }
 
-function push(channel: Channel, x: number, y: number, valid: boolean): void {
-  channel.x.push(x);
-  channel.y.push(y);
-  channel.valid.push(valid);
+function set(channel: Channel, i: number, x: number, y: number, valid: boolean): void {
+  channel.x[i] = x;
+  channel.y[i] = y;
+  channel.valid[i] = valid;
 }

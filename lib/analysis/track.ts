@@ -3,48 +3,47 @@
 // to the analysis engine. parseTrack validates it and explains what is wrong.
 import { z } from "zod";
 import { FULL_SIZE_PLATE_DIAMETER_M } from "./calibration";
-import { normaliseJointName } from "./joints";
+import {
+  FRAME_MESSAGES,
+  MAX_KEYPOINTS_PER_FRAME,
+  formatPath,
+  nothingSeenIssue,
+  numberMessage,
+  parseFrames,
+  timeOrderIssue,
+  type FramesIssue,
+  type TrackIssue,
+} from "./track-frames";
 
+export { MAX_KEYPOINTS_PER_FRAME, formatPath, type TrackIssue };
 export const MAX_FRAMES = 200_000;
-export const MAX_KEYPOINTS_PER_FRAME = 200;
 export const MAX_IMAGE_SIDE_PX = 16_384;
 
 export const LIFTS = ["squat", "bench", "deadlift"] as const;
 export const CAMERA_VIEWS = ["side", "front"] as const;
 
-const finite = (what = "a finite number") =>
-  z.number({ error: (issue) => (issue.input === undefined ? `required: ${what}` : `expected ${what}`) });
+const finite = (what: string = FRAME_MESSAGES.coordinate) => z.number({ error: (issue) => numberMessage(issue.input, what) });
 
 const positive = (what: string) => finite(what).gt(0, { error: `expected ${what}` });
 
-const score = finite("a score from 0 to 1")
-  .min(0, { error: "expected a score from 0 to 1" })
-  .max(1, { error: "expected a score from 0 to 1" });
+const score = finite(FRAME_MESSAGES.score)
+  .min(0, { error: `expected ${FRAME_MESSAGES.score}` })
+  .max(1, { error: `expected ${FRAME_MESSAGES.score}` });
 
-const keypointSchema = z.object(
-  {
-    name: z.string({ error: "expected a keypoint name (string)" }),
-    x: finite(),
-    y: finite(),
-    score,
-  },
-  { error: "expected a keypoint object { name, x, y, score }" },
-);
+const keypointSchema = z.object({ name: z.string({ error: FRAME_MESSAGES.name }), x: finite(), y: finite(), score }, { error: FRAME_MESSAGES.keypoint });
 
-const barSchema = z.object(
-  { x: finite(), y: finite(), score },
-  { error: "expected null or a bar object { x, y, score }" },
-);
+const barSchema = z.object({ x: finite(), y: finite(), score }, { error: FRAME_MESSAGES.bar });
 
+/** One frame, stated as a schema; parseTrack runs the same checks by hand (track-frames.ts) for speed. */
 const frameSchema = z.object(
   {
-    t: finite("a time in seconds (finite number)").min(0, { error: "expected a time of 0 s or later" }),
+    t: finite(FRAME_MESSAGES.time).min(0, { error: FRAME_MESSAGES.negativeTime }),
     keypoints: z
-      .array(keypointSchema, { error: "expected an array of keypoints" })
-      .max(MAX_KEYPOINTS_PER_FRAME, { error: `too many keypoints (more than ${MAX_KEYPOINTS_PER_FRAME})` }),
+      .array(keypointSchema, { error: FRAME_MESSAGES.keypoints })
+      .max(MAX_KEYPOINTS_PER_FRAME, { error: FRAME_MESSAGES.tooManyKeypoints }),
     bar: barSchema.nullable().optional().transform((bar) => bar ?? null),
   },
-  { error: "expected a frame object { t, keypoints, bar }" },
+  { error: FRAME_MESSAGES.frame },
 );
 
 const plateSchema = z.object(
@@ -104,68 +103,42 @@ export interface AthleteHeightCalibration {
   athleteHeightM: number;
 }
 
-export const trackSchema = z
-  .object(
-    {
-      version: z.literal(1, { error: "expected 1 (the only track format version this engine reads)" }),
-      lift: z.enum(LIFTS, { error: `expected one of ${LIFTS.join(", ")}` }),
-      view: z.enum(CAMERA_VIEWS, { error: `expected one of ${CAMERA_VIEWS.join(", ")}` }),
-      fps: positive("frames per second greater than 0").max(1000, { error: "expected at most 1000 frames per second" }),
-      width: positive("an image width in pixels").max(MAX_IMAGE_SIDE_PX, { error: `expected at most ${MAX_IMAGE_SIDE_PX} pixels` }),
-      height: positive("an image height in pixels").max(MAX_IMAGE_SIDE_PX, { error: `expected at most ${MAX_IMAGE_SIDE_PX} pixels` }),
-      calibration: calibrationSchema,
-      frames: z
-        .array(frameSchema, { error: "expected an array of frames" })
-        .min(1, { error: "expected at least one frame (the track is empty)" })
-        .max(MAX_FRAMES, { error: `too many frames (more than ${MAX_FRAMES})` }),
-    },
-    { error: "expected a track object" },
-  )
-  .superRefine((track, ctx) => {
-    if (track.frames.length === 0) return;
-    checkTimesIncrease(track.frames, ctx);
-    checkSomethingSeen(track.frames, ctx);
-  });
+/** The list of frames: its length is checked here, each frame by `item`. */
+const framesOf = <T extends z.ZodType>(item: T) =>
+  z
+    .array(item, { error: "expected an array of frames" })
+    .min(1, { error: "expected at least one frame (the track is empty)" })
+    .max(MAX_FRAMES, { error: `too many frames (more than ${MAX_FRAMES})` });
+
+const envelopeShape = {
+  version: z.literal(1, { error: "expected 1 (the only track format version this engine reads)" }),
+  lift: z.enum(LIFTS, { error: `expected one of ${LIFTS.join(", ")}` }),
+  view: z.enum(CAMERA_VIEWS, { error: `expected one of ${CAMERA_VIEWS.join(", ")}` }),
+  fps: positive("frames per second greater than 0").max(1000, { error: "expected at most 1000 frames per second" }),
+  width: positive("an image width in pixels").max(MAX_IMAGE_SIDE_PX, { error: `expected at most ${MAX_IMAGE_SIDE_PX} pixels` }),
+  height: positive("an image height in pixels").max(MAX_IMAGE_SIDE_PX, { error: `expected at most ${MAX_IMAGE_SIDE_PX} pixels` }),
+  calibration: calibrationSchema,
+};
+const TRACK_OBJECT = { error: "expected a track object" };
+
+const addIssue = (ctx: z.RefinementCtx, issue: FramesIssue | null) => {
+  if (issue) ctx.addIssue({ code: "custom", path: issue.path, message: issue.message });
+};
+
+/** The whole track format as one schema (what parseTrack accepts). */
+export const trackSchema = z.object({ ...envelopeShape, frames: framesOf(frameSchema) }, TRACK_OBJECT).superRefine((track, ctx) => {
+  if (track.frames.length === 0) return;
+  addIssue(ctx, timeOrderIssue(track.frames));
+  addIssue(ctx, nothingSeenIssue(track.frames));
+});
+
+/** Everything but the frames' contents, which parseTrack checks by hand. */
+const envelopeSchema = z.object({ ...envelopeShape, frames: framesOf(z.unknown()) }, TRACK_OBJECT);
 
 export type Track = z.output<typeof trackSchema>;
 export type TrackFrame = Track["frames"][number];
 export type Lift = Track["lift"];
 export type CameraView = Track["view"];
-
-/**
- * Times must strictly increase. Unsorted frames are rejected rather than
- * sorted: out-of-order frames mean the decoder handed over frames in decode
- * order, and re-sorting would hide that bug upstream.
- */
-function checkTimesIncrease(frames: TrackFrame[], ctx: z.RefinementCtx): void {
-  for (let i = 1; i < frames.length; i++) {
-    if (!(frames[i].t > frames[i - 1].t)) {
-      const kind = frames[i].t === frames[i - 1].t ? "duplicate time" : "time goes backwards";
-      ctx.addIssue({
-        code: "custom",
-        path: ["frames", i, "t"],
-        message: `${kind}: ${frames[i].t} s is not after frames[${i - 1}].t = ${frames[i - 1].t} s (frames must be in increasing time order)`,
-      });
-      return;
-    }
-  }
-}
-
-function checkSomethingSeen(frames: TrackFrame[], ctx: z.RefinementCtx): void {
-  const seen = frames.some((f) => f.bar !== null || f.keypoints.some((k) => normaliseJointName(k.name) !== null));
-  if (!seen) {
-    ctx.addIssue({
-      code: "custom",
-      path: ["frames"],
-      message: "no frame has a bar position or a recognised keypoint: there is nothing to analyse",
-    });
-  }
-}
-
-export interface TrackIssue {
-  path: string;
-  message: string;
-}
 
 /** Bad track input; the message names the field path and what is wrong. */
 export class TrackInputError extends Error {
@@ -179,23 +152,25 @@ export class TrackInputError extends Error {
   }
 }
 
-/** Formats a zod path as `frames[12].bar.x`; the root is `track`. */
-export function formatPath(path: readonly PropertyKey[]): string {
-  let out = "";
-  for (const key of path) {
-    out += typeof key === "number" ? `[${key}]` : `${out ? "." : ""}${String(key)}`;
-  }
-  return out || "track";
-}
-
-/** Validates a track (an object, or its JSON text); throws TrackInputError. */
+/**
+ * Validates a track (an object, or its JSON text); throws TrackInputError. The same checks as
+ * trackSchema; the frames are checked by hand for speed (track-frames.ts). The checks on the
+ * frames as a whole (time order, something seen) run once every field is valid.
+ */
 export function parseTrack(input: unknown): Track {
   const value = typeof input === "string" ? parseJson(input) : input;
-  const result = trackSchema.safeParse(value);
-  if (!result.success) {
-    throw new TrackInputError(result.error.issues.map((i) => ({ path: formatPath(i.path), message: i.message })));
+  const envelope = envelopeSchema.safeParse(value);
+  const issues: TrackIssue[] = envelope.success ? [] : envelope.error.issues.map((i) => ({ path: formatPath(i.path), message: i.message }));
+  const rawFrames = (value as { frames?: unknown } | null)?.frames;
+  const framesUsable = Array.isArray(rawFrames) && rawFrames.length <= MAX_FRAMES;
+  const frames = framesUsable ? parseFrames(rawFrames, issues) : [];
+  if (issues.length === 0 && envelope.success) {
+    for (const issue of [timeOrderIssue(frames), nothingSeenIssue(frames)]) {
+      if (issue) issues.push({ path: formatPath(issue.path), message: issue.message });
+    }
   }
-  return result.data;
+  if (issues.length > 0 || !envelope.success) throw new TrackInputError(issues);
+  return { ...envelope.data, frames };
 }
 
 function parseJson(text: string): unknown {

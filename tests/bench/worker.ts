@@ -1,7 +1,7 @@
 // The analysis worker in headless Chromium on 30 s, 30 fps synthetic clips (1280x720, then
 // 1920x1080): bundles workers/analyse-worker.ts with esbuild, serves it with public/models from
 // 127.0.0.1, and prints frames per second, real-time factor, memory, the page's longest stall and
-// accuracy. The first run in the worker pays for loading the model; a cancel is timed last.
+// accuracy. The first run in the worker pays for loading the model; precise mode and a cancel follow.
 import { createReadStream } from "node:fs";
 import { mkdtemp, rm, stat } from "node:fs/promises";
 import { createServer, type Server } from "node:http";
@@ -149,10 +149,10 @@ function printRun(label: string, run: RunSummary, clip: GeneratedClip): void {
   console.log(`  ${describeAccuracy(accuracy(frames, message.analysis.scale.metresPerPixel, message.analysis.reps, clip.truth))}`);
 }
 
-function analyseRequest(jobId: string, clip: GeneratedClip) {
+function analyseRequest(jobId: string, clip: GeneratedClip, precise = false) {
   const start = clip.truth.frames[0];
   // A tap a few pixels off the plate's centre, as a person would give it.
-  return { type: "analyse", jobId, lift: "squat", view: "side", bar: { kind: "tap", x: start.cx + 3, y: start.cy - 2 } };
+  return { type: "analyse", jobId, lift: "squat", view: "side", bar: { kind: "tap", x: start.cx + 3, y: start.cy - 2 }, precise };
 }
 
 function clipUrl(clip: GeneratedClip): string {
@@ -164,8 +164,8 @@ function describeClip(clip: GeneratedClip): string {
   return `${width}x${height}, ${clip.truth.frameCount} frames at ${fps} fps (H.264)`;
 }
 
-async function timedRun(page: Page, label: string, clip: GeneratedClip): Promise<void> {
-  const request = analyseRequest(label, clip);
+async function timedRun(page: Page, label: string, clip: GeneratedClip, precise = false): Promise<void> {
+  const request = analyseRequest(label, clip, precise);
   const run = (await page.evaluate(`analyseOnce(${JSON.stringify(request)}, ${JSON.stringify(clipUrl(clip))}, null)`)) as RunSummary;
   printRun(`${label}, ${describeClip(clip)}`, run, clip);
 }
@@ -200,10 +200,12 @@ export async function run(): Promise<void> {
     await timedRun(page, "run 1 (loads the model)", hd);
     await timedRun(page, "run 2 (same worker)", hd);
     await timedRun(page, "run 3 (same worker)", fullHd);
+    // Precise mode (BlazePose full on every frame) is several times slower: a 12 s clip measures it.
+    await timedRun(page, "run 4 (precise mode)", await ensureClip({ width: 1280, height: 720, durationS: 12 }), true);
     const report = memory.stop();
     const largest = report.processes[0];
     console.log(
-      `Chromium memory over the three runs: peak ${report.peakTotalMb.toFixed(0)} MB resident summed over ${report.processes.length} processes ` +
+      `Chromium memory over the four runs: peak ${report.peakTotalMb.toFixed(0)} MB resident summed over ${report.processes.length} processes ` +
         `(shared pages counted in each); largest process ${largest.name} ${largest.peakRssMb.toFixed(0)} MB (the renderer holding page and worker)`,
     );
     await timedCancel(page, hd);

@@ -67,7 +67,9 @@ export function sampleProcessTree(rootPid: number, options: { everyMs?: number; 
       const status = readStatus(pid);
       if (!status) continue;
       totalMb += kbToMb(status.VmRSS);
-      peaks.set(pid, { pid, name: status.Name ?? "?", peakRssMb: kbToMb(status.VmHWM) });
+      // A process that has just exited (a zombie) reports no memory: keep what was seen before.
+      const seenMb = peaks.get(pid)?.peakRssMb ?? 0;
+      peaks.set(pid, { pid, name: status.Name ?? "?", peakRssMb: Math.max(seenMb, kbToMb(status.VmHWM)) });
     }
     peakTotalMb = Math.max(peakTotalMb, totalMb);
   };

@@ -9,6 +9,7 @@ import { promisify } from "node:util";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { analysisResultSchema, type AnalysisResult } from "@/lib/analysis/result";
 import { ensureClip, type ClipOptions, type ClipTruth } from "@/tests/fixtures/clips/generate-clip";
+import { opencvSample } from "@/tests/fixtures/opencv-doc";
 
 const run = promisify(execFile);
 const REPO_ROOT = path.resolve(import.meta.dirname, "../../..");
@@ -113,6 +114,33 @@ describe.each(CASES)("npm run analyse -- --video: $name", ({ options, mark }) =>
       expect(Math.abs(result.reps[k].meanConcentricVelocityMps - rep.meanConcentricVelocityMps)).toBeLessThan(0.03);
     });
   });
+});
+
+describe("npm run analyse -- --video without a bar mark, on a clip with people", () => {
+  let dir: string;
+
+  beforeAll(async () => {
+    dir = await mkdtemp(path.join(tmpdir(), "plumbline-cli-pose-"));
+  });
+
+  afterAll(async () => {
+    await rm(dir, { recursive: true, force: true });
+  });
+
+  it("estimates the bar from the pose and labels it as an estimate", async () => {
+    // OpenCV's street clip (768x576, 10 fps): people walking, the nearest pose stands in for the athlete.
+    const clipPath = path.join(dir, "street.mp4");
+    await run("ffmpeg", ["-hide_banner", "-loglevel", "error", "-t", "6", "-i", await opencvSample("streetClip"), "-c:v", "libx264", "-pix_fmt", "yuv420p", clipPath]);
+    const cli = await analyseCli(["--video", clipPath, "--lift", "deadlift", "--view", "front", "--athlete-height-m", "1.75", "--compact"]);
+    expect(cli.code).toBe(0);
+    const result = analysisResultSchema.parse(JSON.parse(cli.stdout));
+    expect(result.settings.barSource).toBe("pose-estimate");
+    expect(result.scale.method).toBe("athlete-height");
+    expect(result.cautions.join(" ")).toMatch(/bar position is estimated from the athlete's wrists/);
+    const bars = (result.frames ?? []).flatMap((f) => (f.bar ? [f.bar] : []));
+    expect(bars.length).toBeGreaterThan(0);
+    expect(bars.every((b) => b.x >= 0 && b.x <= 768 && b.y >= 0 && b.y <= 576)).toBe(true);
+  }, 180_000);
 });
 
 describe("npm run analyse -- --video: input the user must fix", () => {

@@ -50,11 +50,10 @@ describe.each(["squat", "bench", "deadlift"] as const)("%s, side view, over many
 
   it("measures mean concentric velocity to within 0.03 m/s", () => {
     const e = errors(pairs(runs, (r) => r.meanConcentricVelocityMps, (t) => t.meanConcentricVelocityMps));
-    // Target from the product brief: error under 0.03 m/s. Held as RMS and by 95 % of reps; a slow
-    // start in a noisy 30 fps clip may miss by a little more, never by 0.05 m/s.
-    expect(rms(e)).toBeLessThan(0.02);
-    expect(e.filter((v) => Math.abs(v) <= 0.03).length / e.length).toBeGreaterThanOrEqual(0.95);
-    expect(worst(e)).toBeLessThan(0.05);
+    // Target from the product brief: every rep within 0.03 m/s.
+    expect(worst(e)).toBeLessThan(0.03);
+    // Typical error well inside it, so a drift shows before a rep crosses the target (common practice).
+    expect(rms(e)).toBeLessThan(0.01);
   });
 
   it("measures range of motion to within 2 cm and bar deviation and drift to within 1 cm", () => {

@@ -1,4 +1,5 @@
-// An athlete's own sets, newest first: lift, date, load in their unit, reps and RPE.
+// A list of sets, newest first: lift, date, load in the viewer's unit, reps and RPE. Given the viewer's
+// id, it also names the athlete of every set that is not the viewer's own (a coach's list).
 import Link from "next/link";
 import type { SetSummary } from "@/db/queries/sets";
 import { massFromKg } from "@/lib/client/units";
@@ -9,29 +10,35 @@ import { Measure } from "@/components/ui/measure";
 
 export const LIFT_NAMES = { squat: "Squat", bench: "Bench press", deadlift: "Deadlift" } as const;
 
-const STATUS_LABELS: Record<SetSummary["status"], string> = {
-  draft: "No clip yet",
-  uploaded: "Clip uploaded",
-  analysed: "Measured",
-  failed: "Analysis failed",
+const STATUS: Record<SetSummary["status"], { label: string; tone: "neutral" | "action" | "fault" }> = {
+  draft: { label: "No clip yet", tone: "neutral" },
+  uploaded: { label: "Waiting for analysis", tone: "neutral" },
+  analysed: { label: "Measured", tone: "action" },
+  failed: { label: "Analysis failed", tone: "fault" },
 };
 
-export function SetList({ sets, unit }: { sets: SetSummary[]; unit: UnitPreference }) {
+interface SetListProps {
+  sets: SetSummary[];
+  unit: UnitPreference;
+  viewerId?: string;
+  testId?: string;
+}
+
+export function SetList({ sets, unit, viewerId, testId }: SetListProps) {
   return (
-    <ul className="divide-y divide-line rounded-lg border border-line bg-surface">
+    <ul className="divide-y divide-line rounded-lg border border-line bg-surface" data-testid={testId}>
       {sets.map((set) => (
         <li key={set.id} className="flex flex-wrap items-center justify-between gap-x-4 gap-y-1 px-4 py-3">
           <div className="min-w-0">
-            <div className="font-medium">
-              <Link href={`/app/sets/${set.id}`} className="hover:underline">
-                {LIFT_NAMES[set.lift]}
-              </Link>
+            <Link href={`/app/sets/${set.id}`} className="font-medium hover:underline">
+              {LIFT_NAMES[set.lift]}
               {set.variant ? <span className="font-normal text-ink-muted"> · {set.variant}</span> : null}
-            </div>
-            <div className="mt-0.5 flex items-center gap-2 text-xs text-ink-muted">
+            </Link>
+            <div className="mt-0.5 flex flex-wrap items-center gap-2 text-xs text-ink-muted">
+              {viewerId && set.athleteId !== viewerId ? <span className="font-medium text-ink">{set.athleteName}</span> : null}
               <DateText value={set.sessionDate} />
               {set.teamName ? <span>· {set.teamName}</span> : null}
-              <Badge tone={set.status === "failed" ? "fault" : "neutral"}>{STATUS_LABELS[set.status]}</Badge>
+              <Badge tone={STATUS[set.status].tone}>{STATUS[set.status].label}</Badge>
             </div>
           </div>
           <div className="flex items-baseline gap-3">

@@ -1,8 +1,8 @@
 // The analysis Web Worker: decodes the clip with exact frame times (mediabunny over WebCodecs),
-// scales frames down for tracking and pose, runs lib/pipeline then analyseTrack, and reports
+// scales frames down for tracking and pose, runs lib/pipeline then the analysis, and reports
 // progress, the result or an error. A "cancel" message stops the running job.
 import * as tf from "@tensorflow/tfjs";
-import { analyseTrack } from "@/lib/analysis/analyse";
+import { analyseParsedTrack } from "@/lib/analysis/analyse";
 import type { PoseModelId } from "@/lib/pose/constants";
 import { createBrowserPoseDetector } from "@/lib/pose/browser";
 import type { PoseDetector } from "@/lib/pose/detector";
@@ -71,7 +71,7 @@ async function analyse(job: AnalyseJob, signal: AbortSignal): Promise<void> {
       },
     );
     progress(job, "measuring", { fraction: 1, framesDone: pipeline.stats.frameCount });
-    const analysis = analyseTrack(pipeline.track, { loadKg: job.loadKg, includeFrames: true });
+    const analysis = analyseParsedTrack(pipeline.track, { loadKg: job.loadKg, includeFrames: true });
     post({
       type: "result",
       jobId: job.jobId,

@@ -1,9 +1,9 @@
 // Command line for the analysis engine: `npm run analyse -- <track.json> [--frames] [--load-kg <kg>]`
-// reads a track file (format v1), runs analyseTrack and prints the result as one JSON document.
+// reads a track file (format v1), runs the analysis and prints the result as one JSON document.
 import { readFile, realpath } from "node:fs/promises";
 import { pathToFileURL } from "node:url";
 import { parseArgs } from "node:util";
-import { AnalysisOptionsError, analyseTrack } from "@/lib/analysis/analyse";
+import { AnalysisOptionsError, analyseParsedTrack } from "@/lib/analysis/analyse";
 import { parseTrack, TrackInputError } from "@/lib/analysis/track";
 import {
   parseVideoModeArgs,
@@ -108,7 +108,7 @@ export async function runCli(argv: string[], io: CliIo = processIo): Promise<num
     }
     if (command.mode === "video") return await runVideoCommand(command.video, io, command.compact);
     const track = parseTrack(await readTrackFile(command.trackPath));
-    const result = analyseTrack(track, { includeFrames: command.includeFrames, loadKg: command.loadKg });
+    const result = analyseParsedTrack(track, { includeFrames: command.includeFrames, loadKg: command.loadKg });
     io.out(`${JSON.stringify(result, null, command.compact ? undefined : 2)}\n`);
     return 0;
   } catch (error) {

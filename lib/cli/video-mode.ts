@@ -2,7 +2,7 @@
 // pipeline as the browser worker with the Node pose detector, then the analysis engine. The output
 // is the track mode's JSON, with `frames` holding the tracked bar for every decoded frame.
 import { z } from "zod";
-import { analyseTrack } from "@/lib/analysis/analyse";
+import { analyseParsedTrack } from "@/lib/analysis/analyse";
 import type { AnalysisResult } from "@/lib/analysis/result";
 import { CAMERA_VIEWS, LIFTS } from "@/lib/analysis/track";
 import { createNodePoseDetector } from "@/lib/pose/node";
@@ -158,7 +158,7 @@ export async function runVideoMode(args: VideoModeArgs): Promise<VideoModeRun> {
   const detector = await createNodePoseDetector({ model: plan.model, smoothing: false });
   try {
     const pipeline = await runPipeline(clipFrames(args.videoPath, args.maxFrameWidthPx), options, { detector });
-    const analysis = analyseTrack(pipeline.track, { loadKg: args.loadKg, includeFrames: true });
+    const analysis = analyseParsedTrack(pipeline.track, { loadKg: args.loadKg, includeFrames: true });
     return { info, pipeline, poseModel: plan.model, output: { ...analysis, frames: outputFrames(pipeline, analysis) } };
   } finally {
     detector.dispose();

@@ -11,8 +11,8 @@ const repoRoot = path.resolve(import.meta.dirname, "../..");
 /** Where the page loads the worker from (ANALYSIS_WORKER_URL in lib/client/analysis-runner.ts). */
 const ANALYSIS_WORKER_PATH = "workers/analyse-worker.js";
 
-export async function buildAnalysisWorker(): Promise<string> {
-  const outfile = path.join(repoRoot, "public", ANALYSIS_WORKER_PATH);
+/** Builds into public/ for the app, or into `outfile` (the worker benchmark's own folder). */
+export async function buildAnalysisWorker(outfile = path.join(repoRoot, "public", ANALYSIS_WORKER_PATH)): Promise<string> {
   await build({
     entryPoints: [path.join(repoRoot, "workers/analyse-worker.ts")],
     outfile,

@@ -8,7 +8,7 @@ import { createServer, type Server } from "node:http";
 import type { AddressInfo } from "node:net";
 import { tmpdir } from "node:os";
 import path from "node:path";
-import { build } from "esbuild";
+import { buildAnalysisWorker } from "@/lib/dev/build-worker";
 import type { Page } from "playwright-core";
 import { ensureModels } from "@/lib/dev/models";
 import { launchBrowser } from "@/tests/e2e/browser";
@@ -80,19 +80,7 @@ window.analyseOnce = async (request, clipUrl, cancelAfterS) => {
 </script>`;
 
 async function bundleWorker(outDir: string): Promise<void> {
-  await build({
-    entryPoints: [path.join(REPO_ROOT, "workers/analyse-worker.ts")],
-    outfile: path.join(outDir, "analyse-worker.js"),
-    bundle: true,
-    format: "esm",
-    platform: "browser",
-    target: "es2022",
-    minify: true,
-    tsconfig: path.join(REPO_ROOT, "tsconfig.json"),
-    // As lib/dev/build-worker.ts builds it for the app (and as Next treats client code).
-    define: { "process.env.NODE_ENV": '"production"', "process.env": "{}" },
-    logLevel: "warning",
-  });
+  await buildAnalysisWorker(path.join(outDir, "analyse-worker.js"));
 }
 
 /** Serves the harness, the bundled worker, public/models under /models and cached clips under /clips. */

@@ -1,10 +1,11 @@
-// drizzle-kit settings: `npm run db:generate` writes SQL migrations from db/schema.ts into drizzle/ (committed).
+// drizzle-kit settings: `npm run db:generate` writes SQL migrations from db/schema.ts and the
+// area schemas beside it (db/schema-<area>.ts) into drizzle/ (committed).
 import { defineConfig } from "drizzle-kit";
 import { databaseUrl } from "./lib/dev/database-url";
 
 export default defineConfig({
   dialect: "postgresql",
-  schema: "./db/schema.ts",
+  schema: ["./db/schema.ts", "./db/schema-*.ts"],
   out: "./drizzle",
   dbCredentials: { url: databaseUrl() },
   strict: true,

@@ -3,10 +3,13 @@ import { databaseUrl, withDatabase } from "./database-url";
 import { ensureLocalPostgres } from "./postgres";
 import { migrateDatabase, recreateDatabase } from "./databases";
 
-/** A fresh, migrated database for one test run; returns its URL. */
+/**
+ * A fresh, migrated database for one test run; returns its URL.
+ * PLUMBLINE_DB_SUFFIX keeps the databases of two checkouts that share one server apart.
+ */
 export async function freshTestDatabase(name: string): Promise<string> {
   if (!process.env.DATABASE_URL) ensureLocalPostgres();
-  const url = withDatabase(databaseUrl(), name);
+  const url = withDatabase(databaseUrl(), `${name}${process.env.PLUMBLINE_DB_SUFFIX ?? ""}`);
   await recreateDatabase(url);
   await migrateDatabase(url);
   return url;

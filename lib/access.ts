@@ -6,10 +6,11 @@ import { redirect } from "next/navigation";
 import { auth } from "@/lib/auth";
 import { ApiError } from "@/lib/errors";
 import { uuidSchema } from "@/lib/validation/common";
-import { canReadSet, coachesAthlete, teamRolesOf } from "@/db/queries/access";
+import { canReadSet, coachesAthlete, isCoachOf, teamRolesOf } from "@/db/queries/access";
 import { getTeam } from "@/db/queries/teams";
 import { findSet } from "@/db/queries/sets";
 import { isAdmin, type Viewer } from "@/db/queries/viewer";
+import { findReviewCredit, membershipAccess } from "@/db/queries/billing";
 import type { LiftSet, Team } from "@/db/schema";
 import type { MembershipRole } from "@/lib/validation/common";
 
@@ -90,4 +91,37 @@ export async function requireSetAccess(viewer: Viewer, setId: string): Promise<L
   if (!set) throw new ApiError("not_found:set", "There is no such set.");
   if (!(await canReadSet(viewer, set))) throw new ApiError("forbidden:set", "You do not have access to this set.");
   return set;
+}
+
+/** Whose membership an upload or review request draws on: the athlete's, on the team the set is filed under. */
+export interface BilledWork {
+  athleteId: string;
+  teamId: string | null;
+}
+
+const PAUSED =
+  "Your membership has lapsed, so new uploads and review requests are paused. Everything you recorded stays readable and exportable; pay your coach to carry on.";
+
+/**
+ * Uploads (a new set, a new clip) need a paid, comped or still-running membership when the team charges; a free
+ * team, a personal set, the team's coach and admins pass. 402 `payment_required:membership` otherwise.
+ */
+export async function requireUploadAllowed(viewer: Viewer, work: BilledWork): Promise<void> {
+  if (!work.teamId || isAdmin(viewer) || (await isCoachOf(viewer.userId, work.teamId))) return;
+  const access = await membershipAccess(work.athleteId, work.teamId);
+  if (!access.priced || access.view.uploadsAllowed) return;
+  throw new ApiError("payment_required:membership", PAUSED);
+}
+
+/**
+ * Review requests: as uploads, or else an unused paid single review (which the request then spends with
+ * `useReviewCredit` from db/queries/billing.ts inside its own transaction). Says which one applies.
+ */
+export async function requireReviewAllowed(viewer: Viewer, work: BilledWork): Promise<"free" | "membership" | "credit"> {
+  if (!work.teamId || isAdmin(viewer) || (await isCoachOf(viewer.userId, work.teamId))) return "free";
+  const access = await membershipAccess(work.athleteId, work.teamId);
+  if (!access.priced) return "free";
+  if (access.view.uploadsAllowed) return "membership";
+  if (await findReviewCredit(work.athleteId, work.teamId)) return "credit";
+  throw new ApiError("payment_required:membership", PAUSED);
 }

@@ -4,6 +4,7 @@ import { z } from "zod";
 export type ErrorKind =
   | "bad_request"
   | "unauthorized"
+  | "payment_required"
   | "forbidden"
   | "not_found"
   | "conflict"
@@ -16,6 +17,7 @@ export type ErrorCode = `${ErrorKind}:${string}`;
 const STATUS: Record<ErrorKind, number> = {
   bad_request: 400,
   unauthorized: 401,
+  payment_required: 402,
   forbidden: 403,
   not_found: 404,
   conflict: 409,

@@ -37,7 +37,7 @@ function escapeHtml(value: string): string {
 }
 
 /** One short layout for every mail: greeting, paragraphs, one button, the link spelled out, a footer. */
-function compose(subject: string, lines: string[], action: { label: string; url: string }, footer: string): MailContent {
+export function compose(subject: string, lines: string[], action: { label: string; url: string }, footer: string): MailContent {
   const text = [...lines, "", `${action.label}: ${action.url}`, "", footer].join("\n");
   const paragraphs = lines.map((line) => `<p style="margin:0 0 12px">${escapeHtml(line)}</p>`).join("");
   const href = escapeHtml(action.url);

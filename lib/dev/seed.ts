@@ -31,6 +31,7 @@ import { databaseUrl } from "./database-url";
 import { ensureDatabase, migrateDatabase } from "./databases";
 import { ensureLocalPostgres } from "./postgres";
 import { log } from "./run";
+import { seedBilling } from "./seed-billing";
 
 export const DEMO_PASSWORD = "plumbline-demo";
 export const DEMO_TEAM_ID = "5e1d0c0a-7c3b-4a51-9a8e-000000000001";
@@ -186,6 +187,7 @@ export async function seedDemoData(url: string, now = new Date()): Promise<void>
       for (const person of [DEMO_COACH, DEMO_OPERATOR, ...DEMO_ATHLETES]) await upsertPerson(tx, person, passwordHash);
       await seedTeam(tx, now);
       await seedSessions(tx, now);
+      await seedBilling(tx, now);
     });
   } finally {
     await pool.end();

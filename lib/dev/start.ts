@@ -21,8 +21,9 @@ const url = databaseUrl();
 await ensureDatabase(url);
 await migrateDatabase(url);
 await seedDemoData(url);
-const fakes = await startFakes({ ephemeral: false });
+const fakes = await startFakes({ ephemeral: false, appUrl: "http://127.0.0.1:3000" });
 log(`mail fake: read sent mails at ${fakes.mailUrl}`);
+log(`payment fake: ${fakes.paymentsUrl} (hosted checkout and portal pages; webhooks to the app)`);
 
 const appEnv = { ...process.env, ...fakes.env, DATABASE_URL: url, NEXT_TELEMETRY_DISABLED: "1" };
 const jobs = spawnJobRunner(appEnv);

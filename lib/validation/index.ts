@@ -7,3 +7,4 @@ export * from "./profile";
 export * from "./set";
 export * from "./clip";
 export * from "./analysis";
+export * from "./billing";

@@ -14,6 +14,7 @@ declare module "vitest" {
   export interface ProvidedContext {
     baseUrl: string;
     mailUrl: string;
+    paymentsUrl: string;
     databaseUrl: string;
   }
 }
@@ -31,6 +32,7 @@ export default async function setup(project: TestProject): Promise<() => Promise
   const fakes = await startFakes({ ephemeral: true });
   const port = await freePort();
   const baseUrl = `http://127.0.0.1:${port}`;
+  fakes.setAppUrl(baseUrl);
   const env = { ...process.env, ...fakes.env, DATABASE_URL: databaseUrl, BETTER_AUTH_URL: baseUrl, NODE_ENV: "production" as const, NEXT_TELEMETRY_DISABLED: "1" };
   // The worker and the pose models are served from public/: both must be there before `next build`.
   await ensureModels();
@@ -46,6 +48,7 @@ export default async function setup(project: TestProject): Promise<() => Promise
   await waitForHttp(`${baseUrl}/`, 60_000);
   project.provide("baseUrl", baseUrl);
   project.provide("mailUrl", fakes.mailUrl);
+  project.provide("paymentsUrl", fakes.paymentsUrl);
   project.provide("databaseUrl", databaseUrl);
   return async () => {
     if (server.pid) process.kill(-server.pid, "SIGTERM");

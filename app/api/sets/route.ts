@@ -1,5 +1,5 @@
 // GET /api/sets: the sets the viewer may read (filters athleteId, teamId); POST /api/sets: record a set's metadata.
-import { requireAthleteAccess, requireAthleteOf, requireSession, requireTeamMember } from "@/lib/access";
+import { requireAthleteAccess, requireAthleteOf, requireSession, requireTeamMember, requireUploadAllowed } from "@/lib/access";
 import { parseOrThrow, readJson, withErrors } from "@/lib/errors";
 import { createSetSchema, setListQuerySchema } from "@/lib/validation/set";
 import { createSet, listSets } from "@/db/queries/sets";
@@ -17,5 +17,6 @@ export const POST = withErrors(async (request: Request) => {
   const viewer = await requireSession(request);
   const data = parseOrThrow(createSetSchema, await readJson(request, "set"), "set");
   if (data.teamId) await requireAthleteOf(viewer, data.teamId);
+  await requireUploadAllowed(viewer, { athleteId: viewer.userId, teamId: data.teamId ?? null });
   return Response.json({ set: await createSet(viewer.userId, data) }, { status: 201 });
 });

@@ -5,6 +5,7 @@ import Link from "next/link";
 import { getServerViewer } from "@/lib/access";
 import { describeInvitation } from "@/db/queries/invitations";
 import { getProfile } from "@/db/queries/profiles";
+import { pathAfterJoining } from "@/db/queries/billing";
 import { invitationTokenSchema } from "@/lib/validation/invitation";
 import { withNext } from "@/lib/next-path";
 import { AcceptInvitation } from "@/components/auth/accept-invitation";
@@ -78,7 +79,7 @@ export default async function InvitationPage({ params }: { params: Promise<{ tok
     );
   }
 
-  const hasProfile = (await getProfile(viewer.userId)) !== null;
+  const [hasProfile, after] = await Promise.all([getProfile(viewer.userId).then((p) => p !== null), pathAfterJoining(token)]);
   const otherAddress = viewer.email.toLowerCase() !== invitation.email.toLowerCase();
   return (
     <AuthPanel
@@ -109,7 +110,7 @@ export default async function InvitationPage({ params }: { params: Promise<{ tok
         <AcceptInvitation
           token={token}
           teamName={invitation.teamName}
-          next={hasProfile ? "/app/home" : "/app/settings/profile?next=/app/home"}
+          next={hasProfile ? after : `/app/settings/profile?next=${encodeURIComponent(after)}`}
         />
         <p className="text-xs text-ink-muted">
           <Link href="/app" className="underline underline-offset-2">

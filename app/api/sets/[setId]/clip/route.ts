@@ -1,6 +1,6 @@
 // GET: the set's clip (state, facts, short-lived read URLs). POST: start a multipart upload of a new clip.
 // DELETE ?uploadId=: cancel the upload in progress. Anyone who may read the set may upload its clip.
-import { requireSession, requireSetAccess } from "@/lib/access";
+import { requireSession, requireSetAccess, requireUploadAllowed } from "@/lib/access";
 import { parseOrThrow, readJson, withErrors } from "@/lib/errors";
 import { startClipUploadSchema, uploadIdQuerySchema } from "@/lib/validation/clip";
 import { beginClipUpload, clipStateOf, dropClipUpload, requireCurrentUpload } from "@/db/queries/clips";
@@ -19,6 +19,7 @@ export const GET = withErrors(async (request: Request, { params }: Context) => {
 export const POST = withErrors(async (request: Request, { params }: Context) => {
   const viewer = await requireSession(request);
   const set = await requireSetAccess(viewer, (await params).setId);
+  await requireUploadAllowed(viewer, set);
   const data = parseOrThrow(startClipUploadSchema, await readJson(request, "clip"), "clip");
   // No extension: the name the browser gave says nothing; the content is checked on completion.
   const storageKey = `${newClipFolder(set.id)}original`;

@@ -3,7 +3,16 @@
 import pg from "pg";
 import { drizzle, type NodePgDatabase } from "drizzle-orm/node-postgres";
 import { databaseUrl } from "@/lib/dev/database-url";
-import * as schema from "./schema";
+import * as baseSchema from "./schema";
+import * as reviewSchema from "./schema-review";
+import * as markupSchema from "./schema-markup";
+
+// One typed client over every area's tables: one spread line per area schema file (db/schema-<area>.ts).
+const schema = {
+  ...baseSchema,
+  ...reviewSchema,
+  ...markupSchema,
+};
 
 export type Database = NodePgDatabase<typeof schema>;
 /** A transaction handle; query helpers accept either, so they compose inside one transaction. */

@@ -5,8 +5,16 @@ import { drizzle, type NodePgDatabase } from "drizzle-orm/node-postgres";
 import { databaseUrl } from "@/lib/dev/database-url";
 import * as baseSchema from "./schema";
 import * as billingSchema from "./schema-billing";
+import * as reviewSchema from "./schema-review";
+import * as markupSchema from "./schema-markup";
 
-const schema = { ...baseSchema, ...billingSchema };
+// One typed client over every area's tables: one spread line per area schema file (db/schema-<area>.ts).
+const schema = {
+  ...baseSchema,
+  ...billingSchema,
+  ...reviewSchema,
+  ...markupSchema,
+};
 
 export type Database = NodePgDatabase<typeof schema>;
 /** A transaction handle; query helpers accept either, so they compose inside one transaction. */

@@ -7,7 +7,9 @@ import { auth } from "@/lib/auth";
 import { ApiError } from "@/lib/errors";
 import { uuidSchema } from "@/lib/validation/common";
 import { canReadSet, coachesAthlete, isCoachOf, teamRolesOf } from "@/db/queries/access";
-import { getTeam } from "@/db/queries/teams";
+import { findActiveShare } from "@/db/queries/shares";
+import { canEditReviewRole, type SetReaderRole } from "@/lib/review/status";
+import { getTeam, listMemberships } from "@/db/queries/teams";
 import { findSet } from "@/db/queries/sets";
 import { isAdmin, type Viewer } from "@/db/queries/viewer";
 import { findReviewCredit, membershipAccess } from "@/db/queries/billing";
@@ -124,4 +126,46 @@ export async function requireReviewAllowed(viewer: Viewer, work: BilledWork): Pr
   if (access.view.uploadsAllowed) return "membership";
   if (await findReviewCredit(work.athleteId, work.teamId)) return "credit";
   throw new ApiError("payment_required:membership", PAUSED);
+}
+
+export type { SetReaderRole };
+
+/**
+ * The set exists and the viewer may read its review: its athlete, a coach who may read it (requireSetAccess's rule),
+ * an admin, or an athlete on the set's team while the set is shared with that team. Write paths keep requireSetAccess.
+ */
+export async function requireSetReader(viewer: Viewer, setId: string): Promise<{ set: LiftSet; role: SetReaderRole }> {
+  const id = uuidSchema.safeParse(setId);
+  const set = id.success ? await findSet(id.data) : null;
+  if (!set) throw new ApiError("not_found:set", "There is no such set.");
+  if (set.athleteId === viewer.userId) return { set, role: "athlete" };
+  if (await canReadSet(viewer, set)) return { set, role: isAdmin(viewer) && !(await coachesSet(viewer, set)) ? "admin" : "coach" };
+  if (set.teamId && (await teamRolesOf(viewer.userId, set.teamId)).includes("athlete")) {
+    const share = await findActiveShare(set.id);
+    if (share && share.teamId === set.teamId) return { set, role: "teammate" };
+  }
+  throw new ApiError("forbidden:set", "You do not have access to this set.");
+}
+
+/** Coaches and admins write the summary, change the status, share the set. */
+export function canEditReview(role: SetReaderRole): boolean {
+  return canEditReviewRole(role);
+}
+
+/** requireSetReader, then refuses anyone who may not edit the review (athlete, teammate). */
+export async function requireReviewEditor(viewer: Viewer, setId: string): Promise<{ set: LiftSet; role: SetReaderRole }> {
+  const reader = await requireSetReader(viewer, setId);
+  if (!canEditReview(reader.role)) throw new ApiError("forbidden:review", "Only the athlete's coach can change the review.");
+  return reader;
+}
+
+async function coachesSet(viewer: Viewer, set: LiftSet): Promise<boolean> {
+  return set.teamId ? isCoachOf(viewer.userId, set.teamId) : false;
+}
+
+/** The viewer coaches some team (or is an admin): the review desk is theirs. */
+export async function requireCoach(viewer: Viewer): Promise<void> {
+  if (isAdmin(viewer)) return;
+  const memberships = await listMemberships(viewer.userId);
+  if (!memberships.some((m) => m.role === "coach")) throw new ApiError("forbidden:desk", "The review desk is for coaches.");
 }

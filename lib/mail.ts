@@ -112,3 +112,16 @@ export async function sendInvitationMails(inputs: InvitationMailInput[]): Promis
   }
   return failed;
 }
+
+export function reviewAnsweredMail(input: { athleteName: string; coachName: string; setTitle: string; url: string }): MailContent {
+  return compose(
+    `${input.coachName} answered your ${input.setTitle}`,
+    [
+      `Hello ${input.athleteName},`,
+      `${input.coachName} reviewed your ${input.setTitle} on Plumbline: open the review for the summary, the cues and the comments pinned to the clip. You can reply there.`,
+      "The measures are estimates from video, not medical advice. If a lift causes pain, stop and see a licensed health professional.",
+    ],
+    { label: "Open the review", url: input.url },
+    "You get this mail because your coach answered a set you recorded.",
+  );
+}

@@ -4,7 +4,7 @@ import type { NavItem } from "./nav-links";
 
 export function navItemsFor(roles: ReadonlySet<MembershipRole>): NavItem[] {
   const items: NavItem[] = [];
-  if (roles.has("coach")) items.push({ href: "/app/roster", label: "Roster" });
+  if (roles.has("coach")) items.push({ href: "/app/desk", label: "Review desk" }, { href: "/app/roster", label: "Roster" });
   if (roles.has("athlete")) items.push({ href: "/app/home", label: "Home" });
   if (roles.size > 0) items.push({ href: "/app/sets", label: "Sets" });
   if (roles.size > 0) items.push({ href: "/app/billing", label: "Billing" });

@@ -1,6 +1,7 @@
 // One set: its details, then whichever step it is at — add the clip, analyse it (plate mark, progress,
 // cancel), or the measured result with the trace, reps, flags and cautions.
 import type { Metadata } from "next";
+import Link from "next/link";
 import { notFound } from "next/navigation";
 import { requireServerViewer, requireSetAccess, type Viewer } from "@/lib/access";
 import { ApiError } from "@/lib/errors";
@@ -18,6 +19,7 @@ import { AnalysisStep } from "@/components/sets/analysis-step";
 import { ClipUploader } from "@/components/sets/clip-uploader";
 import { Reanalyse } from "@/components/sets/reanalyse";
 import { Banner } from "@/components/ui/banner";
+import { buttonClasses } from "@/components/ui/button";
 import { Card, CardBody, CardHeader } from "@/components/ui/card";
 import { formatDay } from "@/components/ui/date-text";
 import { formatNumber } from "@/components/ui/measure";
@@ -67,7 +69,17 @@ export default async function SetPage({ params }: { params: Promise<{ setId: str
 
   return (
     <div className="grid max-w-4xl gap-6">
-      <PageHeader title={title} description={facts.join(" · ")} />
+      <PageHeader
+        title={title}
+        description={facts.join(" · ")}
+        actions={
+          analysis ? (
+            <Link href={`/app/sets/${set.id}/review`} className={buttonClasses({ size: "sm" })}>
+              Open the review
+            </Link>
+          ) : null
+        }
+      />
       {set.note ? <p className="-mt-4 text-sm text-ink-muted">{set.note}</p> : null}
       {analysis ? (
         <>

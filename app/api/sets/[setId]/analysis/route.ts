@@ -2,7 +2,7 @@
 // POST: saves what the browser's worker computed — result, model, settings, calibration — in one
 // transaction, with the full per-frame track stored beside the clip; a new analysis replaces the old.
 import { randomUUID } from "node:crypto";
-import { requireSession, requireSetAccess } from "@/lib/access";
+import { requireSession, requireSetAccess, requireSetReader } from "@/lib/access";
 import { ApiError, parseOrThrow, readJson, withErrors } from "@/lib/errors";
 import { saveAnalysisSchema } from "@/lib/validation/analysis";
 import { parseTrack, TrackInputError } from "@/lib/analysis/track";
@@ -18,7 +18,8 @@ const MAX_BODY_BYTES = 64 * 1024 * 1024;
 
 export const GET = withErrors(async (request: Request, { params }: Context) => {
   const viewer = await requireSession(request);
-  const set = await requireSetAccess(viewer, (await params).setId);
+  // Reading also admits teammates while the set is shared for peer review; writes keep requireSetAccess.
+  const { set } = await requireSetReader(viewer, (await params).setId);
   const analysis = await getAnalysis(set.id);
   if (!analysis) throw new ApiError("not_found:analysis", "This set has not been analysed yet.");
   const trackKey = await currentTrackKey(set.id);

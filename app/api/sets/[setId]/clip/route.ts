@@ -1,6 +1,6 @@
 // GET: the set's clip (state, facts, short-lived read URLs). POST: start a multipart upload of a new clip.
 // DELETE ?uploadId=: cancel the upload in progress. Anyone who may read the set may upload its clip.
-import { requireSession, requireSetAccess, requireUploadAllowed } from "@/lib/access";
+import { requireSession, requireSetAccess, requireSetReader, requireUploadAllowed } from "@/lib/access";
 import { parseOrThrow, readJson, withErrors } from "@/lib/errors";
 import { startClipUploadSchema, uploadIdQuerySchema } from "@/lib/validation/clip";
 import { beginClipUpload, clipStateOf, dropClipUpload, requireCurrentUpload } from "@/db/queries/clips";
@@ -12,7 +12,8 @@ type Context = { params: Promise<{ setId: string }> };
 
 export const GET = withErrors(async (request: Request, { params }: Context) => {
   const viewer = await requireSession(request);
-  const set = await requireSetAccess(viewer, (await params).setId);
+  // Reading also admits teammates while the set is shared for peer review; writes keep requireSetAccess.
+  const { set } = await requireSetReader(viewer, (await params).setId);
   return Response.json({ clip: await clipView(clipStateOf(set)) });
 });
 

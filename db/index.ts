@@ -7,6 +7,7 @@ import * as baseSchema from "./schema";
 import * as billingSchema from "./schema-billing";
 import * as reviewSchema from "./schema-review";
 import * as markupSchema from "./schema-markup";
+import * as preferencesSchema from "./schema-preferences";
 
 // One typed client over every area's tables: one spread line per area schema file (db/schema-<area>.ts).
 const schema = {
@@ -14,6 +15,7 @@ const schema = {
   ...billingSchema,
   ...reviewSchema,
   ...markupSchema,
+  ...preferencesSchema,
 };
 
 export type Database = NodePgDatabase<typeof schema>;

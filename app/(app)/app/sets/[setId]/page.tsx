@@ -16,6 +16,7 @@ import { massFromKg } from "@/lib/client/units";
 import { CAMERA_VIEW_LABELS, LIFT_LABELS } from "@/lib/client/set-form";
 import { AnalysisResult } from "@/components/sets/analysis-result";
 import { AnalysisStep } from "@/components/sets/analysis-step";
+import { SetCompareLinks } from "@/components/compare/set-compare-links";
 import { ClipUploader } from "@/components/sets/clip-uploader";
 import { Reanalyse } from "@/components/sets/reanalyse";
 import { Banner } from "@/components/ui/banner";
@@ -83,6 +84,7 @@ export default async function SetPage({ params }: { params: Promise<{ setId: str
       {set.note ? <p className="-mt-4 text-sm text-ink-muted">{set.note}</p> : null}
       {analysis ? (
         <>
+          <SetCompareLinks setId={set.id} athleteId={set.athleteId} lift={set.lift} repIds={analysis.reps.map((r) => r.id)} />
           <AnalysisResult
             analysis={analysis}
             lift={set.lift}

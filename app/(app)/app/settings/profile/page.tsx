@@ -1,5 +1,6 @@
 // Profile settings: body mass, height, unit and known one-rep maxes. `?next=` continues onboarding after saving.
 import type { Metadata } from "next";
+import Link from "next/link";
 import { requireServerViewer } from "@/lib/access";
 import { getProfile } from "@/db/queries/profiles";
 import { safeNextPath } from "@/lib/next-path";
@@ -18,6 +19,11 @@ export default async function ProfilePage({ searchParams }: { searchParams: Prom
       <PageHeader
         title={afterSave ? "A few numbers about you" : "Profile"}
         description="Stored in kilograms and metres; shown in the unit you choose. Every field can wait."
+        actions={
+          <Link href="/app/settings/units" className="text-sm font-medium text-action underline-offset-2 hover:underline">
+            Display units
+          </Link>
+        }
       />
       <Card>
         <CardBody>

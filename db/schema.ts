@@ -4,6 +4,7 @@ import { relations, sql } from "drizzle-orm";
 import {
   bigint,
   boolean,
+  customType,
   check,
   date,
   doublePrecision,
@@ -277,6 +278,13 @@ export const sets = pgTable(
 
 // ---- analyses (filled by later issues; shape follows lib/analysis/result.ts) ----
 
+/** Raw bytes (PostgreSQL bytea), given and read as a Uint8Array. */
+const bytea = customType<{ data: Uint8Array; driverData: Buffer }>({
+  dataType: () => "bytea",
+  toDriver: (value) => Buffer.from(value.buffer, value.byteOffset, value.byteLength),
+  fromDriver: (value) => new Uint8Array(value.buffer, value.byteOffset, value.byteLength),
+});
+
 /** One run of the analysis engine over a set; exactly one per set is current. */
 export const analyses = pgTable(
   "analyses",
@@ -297,8 +305,11 @@ export const analyses = pgTable(
     cautions: jsonb("cautions").$type<string[]>().default([]).notNull(),
     /** The engine's notes on what it could not measure and why. */
     notes: jsonb("notes").$type<string[]>().default([]).notNull(),
-    /** Per-frame bar positions for drawing the path over the clip: [{ t, bar: { x, y } | null }]. */
-    frames: jsonb("frames").$type<{ t: number; bar: { x: number; y: number } | null }[]>(),
+    /**
+     * Per-frame bar positions for drawing the path over the clip, packed by lib/analysis/packed-frames.ts
+     * (float64 t, x, y per frame): a fifth of the jsonb's bytes and no JSON to build or parse.
+     */
+    barFrames: bytea("bar_frames"),
     /** The full per-frame track (keypoints and bar) in object storage beside the clip. */
     trackStorageKey: text("track_storage_key"),
     createdBy: text("created_by").references(() => user.id, { onDelete: "set null" }),

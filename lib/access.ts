@@ -80,6 +80,25 @@ export function requireAthleteOf(viewer: Viewer, teamId: string): Promise<Team> 
   return requireTeamRole(viewer, teamId, ["athlete"], "You can only record sets for a team you lift on.");
 }
 
+/**
+ * Whose a new set is: the viewer's own (filed under a team they lift on, if any), or, for a coach of the
+ * team (or an admin), one of the team's athletes. Returns the athlete's id.
+ */
+export async function requireSetOwner(viewer: Viewer, target: { athleteId: string | null; teamId: string | null }): Promise<string> {
+  const athleteId = target.athleteId ?? viewer.userId;
+  if (athleteId === viewer.userId) {
+    if (target.teamId) await requireAthleteOf(viewer, target.teamId);
+    return athleteId;
+  }
+  // Filed under the team: that is what lets the athlete's coaches see it (db/queries/access.ts).
+  if (!target.teamId) throw new ApiError("bad_request:set", "Choose the team the athlete's set is recorded for.");
+  await requireCoachOf(viewer, target.teamId);
+  if (!(await teamRolesOf(athleteId, target.teamId)).includes("athlete")) {
+    throw new ApiError("forbidden:athlete", "That person does not lift on this team.");
+  }
+  return athleteId;
+}
+
 /** The viewer is the athlete, coaches them on some team, or is an admin. */
 export async function requireAthleteAccess(viewer: Viewer, athleteId: string): Promise<void> {
   if (athleteId === viewer.userId || isAdmin(viewer)) return;

@@ -3,6 +3,7 @@
 import { z } from "zod";
 import { analysisResultSchema } from "@/lib/analysis/result";
 import { CAMERA_VIEWS, LIFTS, trackSchema } from "@/lib/analysis/track";
+import { FRAME_DECODERS } from "@/lib/clips/decoder-choice";
 import { PIPELINE_ERROR_CODES, barMarkSchema } from "@/lib/pipeline";
 
 const jobId = z.string().min(1).max(100);
@@ -11,10 +12,9 @@ const finite = z.number().finite();
 /** Frames are scaled down to this width for tracking and pose (taller clips keep their aspect ratio). */
 export const DEFAULT_MAX_FRAME_WIDTH_PX = 640;
 
-export const analyseRequestSchema = z.object({
-  type: z.literal("analyse"),
+/** What every analysis needs besides its frames. */
+const analysisOptions = {
   jobId,
-  clip: z.instanceof(Blob, { message: "expected the clip as a File or Blob" }),
   lift: z.enum(LIFTS),
   view: z.enum(CAMERA_VIEWS),
   /** Tap on the first frame, or the plate circle, in pixels of the clip; null: bar estimated from pose. */
@@ -24,13 +24,57 @@ export const analyseRequestSchema = z.object({
   loadKg: finite.gt(0).max(1000).optional(),
   /** BlazePose full on every frame instead of MoveNet Lightning on a real-time budget. */
   precise: z.boolean().default(false),
+};
+
+/** The worker decodes the clip itself (WebCodecs). */
+export const analyseRequestSchema = z.object({
+  type: z.literal("analyse"),
+  ...analysisOptions,
+  clip: z.instanceof(Blob, { message: "expected the clip as a File or Blob" }),
   maxFrameWidthPx: z.number().int().min(64).max(3840).default(DEFAULT_MAX_FRAME_WIDTH_PX),
 });
 
+/**
+ * The page decodes the clip with its <video> element and sends the frames one by one ("frame", then
+ * "frames-end"); the worker answers each frame it takes with "frame-taken" so the page never runs ahead.
+ */
+export const analyseFramesRequestSchema = z.object({
+  type: z.literal("analyse-frames"),
+  ...analysisOptions,
+  /** The clip as stored (display size, rotation applied). */
+  source: z.object({
+    width: z.number().int().positive().max(16_384),
+    height: z.number().int().positive().max(16_384),
+    fps: finite.gt(0).max(1000).nullable(),
+    durationS: finite.gt(0).nullable(),
+  }),
+});
+
+export const frameMessageSchema = z
+  .object({
+    type: z.literal("frame"),
+    jobId,
+    tS: finite.min(0),
+    width: z.number().int().positive().max(3840),
+    height: z.number().int().positive().max(3840),
+    data: z.instanceof(Uint8ClampedArray, { message: "expected RGBA pixels as a Uint8ClampedArray" }),
+  })
+  .refine((frame) => frame.data.length === frame.width * frame.height * 4, { message: "pixels do not fill width × height × 4", path: ["data"] });
+
+export const framesEndMessageSchema = z.object({ type: z.literal("frames-end"), jobId });
+
 export const cancelRequestSchema = z.object({ type: z.literal("cancel"), jobId });
 
-export const workerRequestSchema = z.discriminatedUnion("type", [analyseRequestSchema, cancelRequestSchema]);
+export const workerRequestSchema = z.discriminatedUnion("type", [
+  analyseRequestSchema,
+  analyseFramesRequestSchema,
+  frameMessageSchema,
+  framesEndMessageSchema,
+  cancelRequestSchema,
+]);
 export type AnalyseRequest = z.input<typeof analyseRequestSchema>;
+export type AnalyseFramesRequest = z.input<typeof analyseFramesRequestSchema>;
+export type FrameMessage = z.input<typeof frameMessageSchema>;
 export type CancelRequest = z.input<typeof cancelRequestSchema>;
 export type WorkerRequest = z.input<typeof workerRequestSchema>;
 
@@ -67,6 +111,8 @@ export const runStatsSchema = z.object({
   /** Time to turn a decoded frame into a small RGBA frame, and how many came straight from YUV planes. */
   readMsMean: finite.min(0),
   yuvFrames: z.number().int().min(0),
+  /** How the frames were decoded (lib/clips/decoder-choice.ts). */
+  decoder: z.enum(FRAME_DECODERS),
 });
 export type RunStats = z.infer<typeof runStatsSchema>;
 
@@ -100,7 +146,15 @@ export const errorMessageSchema = z.object({
   message: z.string().min(1),
 });
 
-export const workerResponseSchema = z.discriminatedUnion("type", [progressMessageSchema, resultMessageSchema, errorMessageSchema]);
+/** The worker took frames up to this count from the page (the page keeps only a few in flight). */
+export const frameTakenMessageSchema = z.object({ type: z.literal("frame-taken"), jobId, framesTaken: z.number().int().min(0) });
+
+export const workerResponseSchema = z.discriminatedUnion("type", [
+  progressMessageSchema,
+  resultMessageSchema,
+  errorMessageSchema,
+  frameTakenMessageSchema,
+]);
 export type ProgressMessage = z.infer<typeof progressMessageSchema>;
 export type ResultMessage = z.infer<typeof resultMessageSchema>;
 export type ErrorMessage = z.infer<typeof errorMessageSchema>;

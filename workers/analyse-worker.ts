@@ -1,28 +1,43 @@
-// The analysis Web Worker: decodes the clip with exact frame times (mediabunny over WebCodecs),
-// scales frames down for tracking and pose, runs lib/pipeline then the analysis, and reports
-// progress, the result or an error. A "cancel" message stops the running job.
+// The analysis Web Worker: decodes the clip with exact frame times (mediabunny over WebCodecs) or
+// takes frames the page decoded with its <video> element, scales frames down for tracking and pose,
+// runs lib/pipeline then the analysis, and reports progress, the result or an error. A "cancel"
+// message stops the running job.
 import * as tf from "@tensorflow/tfjs";
 import { analyseParsedTrack } from "@/lib/analysis/analyse";
 import type { PoseModelId } from "@/lib/pose/constants";
 import { createBrowserPoseDetector } from "@/lib/pose/browser";
 import type { PoseDetector } from "@/lib/pose/detector";
 import { PoseWeightsMissingError } from "@/lib/pose/model-files";
-import { PipelineError, posePlanFor, runPipeline } from "@/lib/pipeline";
+import type { FrameDecoder } from "@/lib/clips/decoder-choice";
+import { PipelineError, posePlanFor, runPipeline, type ClipFrame } from "@/lib/pipeline";
+import type { PipelineOptions } from "@/lib/pipeline/options";
 import {
   workerRequestSchema,
   type ErrorMessage,
   type ProgressMessage,
+  type RunStats,
   type WorkerResponse,
 } from "./analyse-messages";
 import { clipFrames, ClipOpenError, FrameReader, openClip } from "./clip-frames";
+import { FrameInbox } from "./frame-inbox";
 
-type AnalyseJob = Extract<ReturnType<typeof workerRequestSchema.parse>, { type: "analyse" }>;
+type WorkerRequestData = ReturnType<typeof workerRequestSchema.parse>;
+type AnalyseJob = Extract<WorkerRequestData, { type: "analyse" | "analyse-frames" }>;
+
+/** Where one job's frames come from, and what the worker measured while reading them. */
+interface FrameFeed {
+  frames: AsyncIterable<ClipFrame>;
+  source: PipelineOptions["source"];
+  decoder: FrameDecoder;
+  readStats: () => Pick<RunStats, "readMsMean" | "yuvFrames">;
+  close: () => void;
+}
 
 const scope = self as unknown as DedicatedWorkerGlobalScope;
 
 /** Models load once per worker; each clip only resets the detector's state. */
 const detectors = new Map<PoseModelId, Promise<PoseDetector>>();
-let running: { jobId: string; controller: AbortController } | null = null;
+let running: { jobId: string; controller: AbortController; inbox: FrameInbox | null } | null = null;
 
 function post(message: WorkerResponse): void {
   scope.postMessage(message);
@@ -43,21 +58,42 @@ function progress(job: AnalyseJob, stage: ProgressMessage["stage"], rest: Partia
   post({ type: "progress", jobId: job.jobId, stage, fraction: null, framesDone: 0, clipTimeS: 0, elapsedS: 0, ...rest });
 }
 
-async function analyse(job: AnalyseJob, signal: AbortSignal): Promise<void> {
+async function openFeed(job: AnalyseJob, inbox: FrameInbox | null): Promise<FrameFeed> {
+  if (job.type === "analyse-frames") {
+    if (!inbox) throw new Error("frames job without an inbox");
+    return { frames: inbox, source: job.source, decoder: "video-element", readStats: () => ({ readMsMean: 0, yuvFrames: 0 }), close: () => inbox.close() };
+  }
+  const clip = await openClip(job.clip);
+  const reader = new FrameReader(clip, job.maxFrameWidthPx);
+  let frameCount = 0;
+  return {
+    frames: (async function* () {
+      for await (const frame of clipFrames(clip, reader)) {
+        frameCount += 1;
+        yield frame;
+      }
+    })(),
+    source: { width: clip.width, height: clip.height, fps: clip.fps, durationS: clip.durationS },
+    decoder: "webcodecs",
+    readStats: () => ({ readMsMean: reader.readMs / Math.max(1, frameCount), yuvFrames: reader.yuvFrames }),
+    close: () => clip.input.dispose(),
+  };
+}
+
+async function analyse(job: AnalyseJob, signal: AbortSignal, inbox: FrameInbox | null): Promise<void> {
   const plan = posePlanFor(job.precise);
   progress(job, "loading-model");
   const detector = await detectorFor(plan.model);
   signal.throwIfAborted();
   progress(job, "opening-clip");
-  const clip = await openClip(job.clip);
+  const feed = await openFeed(job, inbox);
   try {
-    const reader = new FrameReader(clip, job.maxFrameWidthPx);
     const pipeline = await runPipeline(
-      clipFrames(clip, reader),
+      feed.frames,
       {
         lift: job.lift,
         view: job.view,
-        source: { width: clip.width, height: clip.height, fps: clip.fps, durationS: clip.durationS },
+        source: feed.source,
         bar: job.bar,
         plateDiameterM: job.plateDiameterM,
         athleteHeightM: job.athleteHeightM,
@@ -70,6 +106,8 @@ async function analyse(job: AnalyseJob, signal: AbortSignal): Promise<void> {
           progress(job, "tracking", { fraction: p.fraction, framesDone: p.framesDone, clipTimeS: p.clipTimeS, elapsedS: p.elapsedS }),
       },
     );
+    // A cancel closes the page's frame inbox, which ends the frames early: that is no result.
+    signal.throwIfAborted();
     progress(job, "measuring", { fraction: 1, framesDone: pipeline.stats.frameCount });
     const analysis = analyseParsedTrack(pipeline.track, { loadKg: job.loadKg, includeFrames: true });
     post({
@@ -81,14 +119,14 @@ async function analyse(job: AnalyseJob, signal: AbortSignal): Promise<void> {
       plate: pipeline.plate,
       stats: {
         ...pipeline.stats,
+        ...feed.readStats(),
         poseModel: plan.model,
         liveTensors: tf.memory().numTensors,
-        readMsMean: reader.readMs / Math.max(1, pipeline.stats.frameCount),
-        yuvFrames: reader.yuvFrames,
+        decoder: feed.decoder,
       },
     });
   } finally {
-    clip.input.dispose();
+    feed.close();
   }
 }
 
@@ -107,9 +145,10 @@ async function start(job: AnalyseJob): Promise<void> {
     return;
   }
   const controller = new AbortController();
-  running = { jobId: job.jobId, controller };
+  const inbox = job.type === "analyse-frames" ? new FrameInbox((framesTaken) => post({ type: "frame-taken", jobId: job.jobId, framesTaken })) : null;
+  running = { jobId: job.jobId, controller, inbox };
   try {
-    await analyse(job, controller.signal);
+    await analyse(job, controller.signal, inbox);
   } catch (error) {
     post(toErrorMessage(job.jobId, error, controller.signal));
   } finally {
@@ -127,9 +166,20 @@ scope.onmessage = (event: MessageEvent<unknown>) => {
     return;
   }
   const request = parsed.data;
-  if (request.type === "cancel") {
-    if (running?.jobId === request.jobId) running.controller.abort();
-    return;
+  switch (request.type) {
+    case "cancel":
+      if (running?.jobId === request.jobId) {
+        running.controller.abort();
+        running.inbox?.close();
+      }
+      return;
+    case "frame":
+      if (running?.jobId === request.jobId) running.inbox?.push({ tS: request.tS, frame: { width: request.width, height: request.height, data: request.data } });
+      return;
+    case "frames-end":
+      if (running?.jobId === request.jobId) running.inbox?.close();
+      return;
+    default:
+      void start(request);
   }
-  void start(request);
 };

@@ -12,6 +12,7 @@ import { AnalysisRunError, poseModelVersion, startAnalysis, type AnalysisRun } f
 import { suggestPlateCircle } from "@/lib/tracking";
 import { FULL_SIZE_PLATE_DIAMETER_M } from "@/lib/analysis/calibration";
 import type { EngineView } from "@/lib/clips/analysis-view";
+import type { FrameDecoder } from "@/lib/clips/decoder-choice";
 import type { Lift } from "@/lib/validation/common";
 import type { ProgressMessage } from "@/workers/analyse-messages";
 import { Banner } from "@/components/ui/banner";
@@ -66,6 +67,7 @@ export function AnalysisStep({ setId, lift, view, loadKg, athleteHeightM, onSave
   const [rimFound, setRimFound] = useState<boolean | null>(null);
   const [diameter, setDiameter] = useState(String(FULL_SIZE_PLATE_DIAMETER_M));
   const clipBlob = useRef<Blob | null>(null);
+  const decoder = useRef<FrameDecoder>("webcodecs");
   const run = useRef<AnalysisRun | null>(null);
 
   const waitForConversion = useCallback(async (): Promise<ClipViewData> => {
@@ -85,13 +87,17 @@ export function AnalysisStep({ setId, lift, view, loadKg, athleteHeightM, onSave
       let blob = await fetchBlob(clip.convertedUrl ?? (clip.url as string));
       try {
         setStep({ kind: "loading", message: "Checking this browser can decode the clip" });
-        setFrame((await decodeFirstFrame(blob)).image);
+        const first = await decodeFirstFrame(blob);
+        decoder.current = first.decoder;
+        setFrame(first.image);
       } catch (error) {
         if (!(error instanceof UndecodableClipError) || clip.convertedUrl) throw error;
         setStep({ kind: "converting" });
         clip = await waitForConversion();
         blob = await fetchBlob(clip.convertedUrl as string);
-        setFrame((await decodeFirstFrame(blob)).image);
+        const first = await decodeFirstFrame(blob);
+        decoder.current = first.decoder;
+        setFrame(first.image);
       }
       clipBlob.current = blob;
       setStep({ kind: "marking" });
@@ -122,6 +128,7 @@ export function AnalysisStep({ setId, lift, view, loadKg, athleteHeightM, onSave
     const started = startAnalysis(
       {
         clip: blob,
+        decoder: decoder.current,
         lift,
         view,
         bar: withPlate && circle ? { kind: "plate", cx: circle.cx, cy: circle.cy, radiusPx: circle.radiusPx } : null,
@@ -139,7 +146,7 @@ export function AnalysisStep({ setId, lift, view, loadKg, athleteHeightM, onSave
         method: "POST",
         body: {
           model: { id: result.stats.poseModel, version: poseModelVersion(result.stats.poseModel) },
-          settings: { barSource: result.barSource, plate: result.plate, plateDiameterM: withPlate ? plateDiameterM : null, stats: result.stats },
+          settings: { decoder: result.stats.decoder, barSource: result.barSource, plate: result.plate, plateDiameterM: withPlate ? plateDiameterM : null, stats: result.stats },
           calibration: result.track.calibration,
           result: result.analysis,
           track: result.track,

@@ -14,6 +14,8 @@ export function ClipRecorder({ onRecorded, onClose }: { onRecorded: (file: File)
   const stream = useRef<MediaStream | null>(null);
   const recorder = useRef<MediaRecorder | null>(null);
   const [recording, setRecording] = useState(false);
+  // Start waits for the camera: a click before it opens would otherwise do nothing.
+  const [cameraReady, setCameraReady] = useState(false);
   const [error, setError] = useState<string>();
 
   useEffect(() => {
@@ -24,6 +26,7 @@ export function ClipRecorder({ onRecorded, onClose }: { onRecorded: (file: File)
         if (cancelled) return media.getTracks().forEach((t) => t.stop());
         stream.current = media;
         if (preview.current) preview.current.srcObject = media;
+        setCameraReady(true);
       })
       .catch(() => setError("The camera could not be opened. Allow camera access, or pick a clip from the phone instead."));
     return () => {
@@ -68,7 +71,7 @@ export function ClipRecorder({ onRecorded, onClose }: { onRecorded: (file: File)
             Stop recording
           </Button>
         ) : (
-          <Button onClick={start} disabled={Boolean(error)}>
+          <Button onClick={start} disabled={!cameraReady || Boolean(error)}>
             Start recording
           </Button>
         )}

@@ -14,6 +14,7 @@ import {
   LIFT_LABELS,
   SET_FORM_FIELDS,
   VARIANT_SUGGESTIONS,
+  athleteChoice,
   defaultSetFormValues,
   setFormSchema,
   type SetFormValues,
@@ -30,15 +31,26 @@ import { ClipPicker, type PickedClip } from "./clip-picker";
 import { FilmingAdvice, FilmingWarnings } from "./filming-warnings";
 import { ProgressBar } from "./upload-progress";
 
+/** An athlete of a team the viewer coaches, who the viewer may record a set for. */
+export interface CoachedAthlete {
+  teamId: string;
+  teamName: string;
+  userId: string;
+  name: string;
+  oneRepMaxesKg: Partial<Record<Lift, number>>;
+}
+
 export interface NewSetFormProps {
   teams: { id: string; name: string }[];
+  /** Empty unless the viewer coaches: then the form asks whose set it is. */
+  athletes: CoachedAthlete[];
   unit: UnitPreference;
   oneRepMaxesKg: Partial<Record<Lift, number>>;
 }
 
 type Stage = { kind: "editing" } | { kind: "saving" } | { kind: "uploading"; progress: UploadProgress } | { kind: "failed"; message: string };
 
-export function NewSetForm({ teams, unit, oneRepMaxesKg }: NewSetFormProps) {
+export function NewSetForm({ teams, athletes, unit, oneRepMaxesKg }: NewSetFormProps) {
   const router = useRouter();
   const variantListId = useId();
   const [clip, setClip] = useState<PickedClip | null>(null);
@@ -52,21 +64,23 @@ export function NewSetForm({ teams, unit, oneRepMaxesKg }: NewSetFormProps) {
     defaultValues: defaultSetFormValues(unit, teams[0]?.id ?? null),
   });
   const { errors } = form.formState;
-  const [lift, load, chosenUnit, reps] = form.watch(["lift", "load", "unit", "reps"]);
+  const [lift, load, chosenUnit, reps, athlete] = form.watch(["lift", "load", "unit", "reps", "athlete"]);
+  const forAthlete = athletes.find((a) => athleteChoice(a.teamId, a.userId) === athlete) ?? null;
+  const maxesKg = forAthlete ? forAthlete.oneRepMaxesKg : oneRepMaxesKg;
 
   const warnings = useMemo(() => {
     const typedLoad = parseDecimal(load);
     const typedReps = parseDecimal(reps);
     return filmingWarnings({
       loadKg: typedLoad === null || Number.isNaN(typedLoad) ? null : massToKg(typedLoad, chosenUnit),
-      oneRepMaxKg: oneRepMaxesKg[lift] ?? null,
+      oneRepMaxKg: maxesKg[lift] ?? null,
       reps: typedReps === null || Number.isNaN(typedReps) ? null : typedReps,
       clip:
         clip?.facts.widthPx && clip.facts.heightPx && clip.facts.durationS !== null
           ? { widthPx: clip.facts.widthPx, heightPx: clip.facts.heightPx, durationS: clip.facts.durationS }
           : null,
     });
-  }, [lift, load, chosenUnit, reps, clip, oneRepMaxesKg]);
+  }, [lift, load, chosenUnit, reps, clip, maxesKg]);
 
   const busy = stage.kind === "saving" || stage.kind === "uploading";
 
@@ -103,12 +117,25 @@ export function NewSetForm({ teams, unit, oneRepMaxesKg }: NewSetFormProps) {
   });
 
   const teamOptions = [...teams.map((t) => ({ value: t.id, label: t.name })), { value: "", label: "No team (only you see it)" }];
+  const athleteOptions = [
+    { value: "", label: "Me" },
+    ...athletes.map((a) => ({ value: athleteChoice(a.teamId, a.userId), label: `${a.name} (${a.teamName})` })),
+  ];
 
   return (
     <form onSubmit={onSubmit} noValidate className="grid gap-6">
       <FormError message={formError} />
       {/* Once the set is saved its details are fixed; only the clip upload can be retried. */}
       <fieldset disabled={busy || savedSetId !== null} className="grid gap-6">
+        {athletes.length > 0 ? (
+          <SelectField
+            label="Athlete"
+            hint="Whose set this is: yours, or one of your team's athletes (it is filed under their team)."
+            options={athleteOptions}
+            error={errors.athlete?.message}
+            {...form.register("athlete")}
+          />
+        ) : null}
         <div className="grid gap-4 sm:grid-cols-2">
           <SelectField
             label="Lift"
@@ -154,7 +181,7 @@ export function NewSetForm({ teams, unit, oneRepMaxesKg }: NewSetFormProps) {
             initialValue="side"
             {...form.register("cameraView")}
           />
-          <SelectField label="Team" options={teamOptions} error={errors.teamId?.message} {...form.register("teamId")} />
+          {forAthlete ? null : <SelectField label="Team" options={teamOptions} error={errors.teamId?.message} {...form.register("teamId")} />}
         </div>
         <Field label="Note" optional error={errors.note?.message}>
           {(control) => <Textarea {...control} {...form.register("note")} />}

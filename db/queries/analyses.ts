@@ -2,11 +2,12 @@
 // set measures) and read back whole. Re-analysis replaces the old one under a lock on the set row,
 // so concurrent saves leave exactly one consistent analysis.
 import "server-only";
-import { and, asc, eq, getTableColumns, inArray, sql } from "drizzle-orm";
+import { and, asc, eq, getTableColumns, sql } from "drizzle-orm";
 import { db, type Transaction } from "@/db";
 import { analyses, repSeries, reps, setMeasures, sets, type Analysis, type NewRep, type Rep, type SetMeasures } from "@/db/schema";
 import type { AnalysisResult, RepResult } from "@/lib/analysis/result";
 import { SERIES_POINTS } from "@/lib/analysis/result";
+import { packBarFrames, unpackBarFrames, type BarFrame } from "@/lib/analysis/packed-frames";
 import { ApiError } from "@/lib/errors";
 import { canReadSet } from "./access";
 import type { Viewer } from "./viewer";
@@ -133,7 +134,7 @@ async function insertAnalysis(tx: Transaction, viewer: Viewer, setId: string, in
       scaleNote: result.scale.note,
       cautions: result.cautions,
       notes: result.notes,
-      frames: result.frames ?? null,
+      barFrames: result.frames ? packBarFrames(result.frames) : null,
       trackStorageKey: input.trackStorageKey,
       createdBy: viewer.userId,
     })
@@ -180,7 +181,7 @@ export interface StoredAnalysis {
   scale: { metresPerPixel: number; method: Analysis["scaleMethod"]; uncertaintyPct: number; note: string | null };
   cautions: string[];
   notes: string[];
-  frames: Analysis["frames"];
+  frames: BarFrame[] | null;
   createdAt: Date;
   createdBy: string | null;
   reps: StoredRep[];
@@ -191,7 +192,7 @@ function withoutAnalysisId({ analysisId: _analysisId, ...rest }: SetMeasures): O
   return rest;
 }
 
-const { frames: _frames, ...measureColumns } = getTableColumns(analyses);
+const { barFrames: _barFrames, ...measureColumns } = getTableColumns(analyses);
 
 /**
  * The set's current analysis, or null when the set is not analysed yet. The per-frame bar positions are
@@ -199,16 +200,20 @@ const { frames: _frames, ...measureColumns } = getTableColumns(analyses);
  */
 export async function getAnalysis(setId: string, { frames = true }: { frames?: boolean } = {}): Promise<StoredAnalysis | null> {
   const [analysis] = await db
-    .select({ ...measureColumns, frames: frames ? analyses.frames : sql<null>`null` })
+    .select({ ...measureColumns, barFrames: frames ? analyses.barFrames : sql<null>`null` })
     .from(analyses)
     .where(and(eq(analyses.setId, setId), eq(analyses.isCurrent, true)));
   if (!analysis) return null;
-  const [repRows, measureRows] = await Promise.all([
+  // One round trip for the rest: reps, their series (joined through the analysis id) and set measures.
+  const [repRows, measureRows, seriesRowsFound] = await Promise.all([
     db.select().from(reps).where(eq(reps.analysisId, analysis.id)).orderBy(asc(reps.repIndex)),
     db.select().from(setMeasures).where(eq(setMeasures.analysisId, analysis.id)),
+    db
+      .select(getTableColumns(repSeries))
+      .from(repSeries)
+      .innerJoin(reps, eq(reps.id, repSeries.repId))
+      .where(eq(reps.analysisId, analysis.id)),
   ]);
-  const seriesRowsFound =
-    repRows.length > 0 ? await db.select().from(repSeries).where(inArray(repSeries.repId, repRows.map((r) => r.id))) : [];
   const seriesByRep = new Map<string, Partial<Record<StoredSeriesName, number[]>>>();
   for (const row of seriesRowsFound) {
     if (row.points.length !== SERIES_POINTS) continue;
@@ -231,7 +236,7 @@ export async function getAnalysis(setId: string, { frames = true }: { frames?: b
     },
     cautions: analysis.cautions,
     notes: analysis.notes,
-    frames: analysis.frames,
+    frames: analysis.barFrames ? unpackBarFrames(analysis.barFrames) : null,
     createdAt: analysis.createdAt,
     createdBy: analysis.createdBy,
     reps: repRows.map(({ analysisId: _a, createdAt: _c, ...rep }) => ({ ...rep, series: seriesByRep.get(rep.id) ?? {} })),

@@ -89,7 +89,12 @@ function defaultRecordedAt(sessionDate: string, now: Date): Date {
 }
 
 /** Files a set under the athlete's training session of that day (created on first use), in one transaction. */
-export async function createSet(athleteId: string, data: CreateSetData, now = new Date()): Promise<SetSummary> {
+/** Records a set for `athleteId`; `createdBy` is whoever recorded it (the athlete, or their coach). */
+export async function createSet(
+  athleteId: string,
+  data: Omit<CreateSetData, "athleteId">,
+  { createdBy = athleteId, now = new Date() }: { createdBy?: string; now?: Date } = {},
+): Promise<SetSummary> {
   const setId = await db.transaction(async (tx) => {
     const [session] = await tx
       .insert(trainingSessions)
@@ -113,7 +118,7 @@ export async function createSet(athleteId: string, data: CreateSetData, now = ne
         cameraView: data.cameraView,
         note: data.note || null,
         recordedAt: data.recordedAt ? new Date(data.recordedAt) : defaultRecordedAt(data.sessionDate, now),
-        createdBy: athleteId,
+        createdBy,
       })
       .returning({ id: sets.id });
     return row.id;

@@ -3,7 +3,9 @@
 // analysis step, whether this browser can decode it and what its first frame looks like.
 import { ALL_FORMATS, BlobSource, Input, VideoSampleSink } from "mediabunny";
 import { MAX_CLIP_BYTES, MAX_CLIP_DURATION_S, formatMegabytes } from "@/lib/clips/limits";
+import type { FrameDecoder } from "@/lib/clips/decoder-choice";
 import { SNIFF_BYTES, sniffVideo, type VideoContainer } from "@/lib/clips/sniff";
+import { probeClipDecoding, VideoElementFrames } from "./video-element-frames";
 
 export interface ClipFacts {
   container: VideoContainer;
@@ -66,6 +68,8 @@ export interface FirstFrame {
   /** Full clip resolution (display size, rotation applied), as the worker reports coordinates. */
   image: ImageData;
   codec: string | null;
+  /** How the analysis will decode this clip in this browser. */
+  decoder: FrameDecoder;
 }
 
 export class UndecodableClipError extends Error {
@@ -75,14 +79,18 @@ export class UndecodableClipError extends Error {
   }
 }
 
-/** Decodes the first frame; throws UndecodableClipError when this browser has no decoder for the codec. */
+/**
+ * Picks the decoder (lib/clips/decoder-choice.ts) and decodes the first frame with it; throws
+ * UndecodableClipError when this browser can decode the codec neither way.
+ */
 export async function decodeFirstFrame(file: Blob): Promise<FirstFrame> {
+  const { decoder, codec } = await probeClipDecoding(file);
+  if (decoder === null) throw new UndecodableClipError(codec);
+  if (decoder === "video-element") return { image: await VideoElementFrames.firstFrame(file), codec, decoder };
   const input = new Input({ source: new BlobSource(file), formats: ALL_FORMATS });
   try {
     const video = await input.getPrimaryVideoTrack();
     if (!video) throw new Error("The file has no video track.");
-    const codec = await video.getCodec();
-    if (!(await video.canDecode())) throw new UndecodableClipError(codec);
     const width = await video.getDisplayWidth();
     const height = await video.getDisplayHeight();
     const sample = await new VideoSampleSink(video).getSample(await video.getFirstTimestamp());
@@ -95,7 +103,7 @@ export async function decodeFirstFrame(file: Blob): Promise<FirstFrame> {
     } finally {
       sample.close();
     }
-    return { image: context.getImageData(0, 0, width, height), codec };
+    return { image: context.getImageData(0, 0, width, height), codec, decoder };
   } finally {
     input.dispose();
   }

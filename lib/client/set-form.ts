@@ -6,6 +6,8 @@ import { createSetSchema, type CreateSetData } from "@/lib/validation/set";
 import { massToKg, parseDecimal } from "./units";
 
 export interface SetFormValues {
+  /** "" for the viewer's own set, or `${teamId}/${athleteId}`: a coach recording for one of the team's athletes. */
+  athlete: string;
   teamId: string;
   sessionDate: string;
   lift: Lift;
@@ -18,7 +20,7 @@ export interface SetFormValues {
   note: string;
 }
 
-export const SET_FORM_FIELDS = ["teamId", "sessionDate", "lift", "variant", "load", "reps", "rpe", "cameraView", "note"] as const;
+export const SET_FORM_FIELDS = ["athlete", "teamId", "sessionDate", "lift", "variant", "load", "reps", "rpe", "cameraView", "note"] as const;
 type SetFormField = (typeof SET_FORM_FIELDS)[number];
 
 export const LIFT_LABELS: Record<Lift, string> = { squat: "Squat", bench: "Bench press", deadlift: "Deadlift" };
@@ -36,6 +38,7 @@ export const VARIANT_SUGGESTIONS: Record<Lift, string[]> = {
 function fieldOfPath(path: readonly PropertyKey[]): SetFormField {
   const head = String(path[0] ?? "note");
   if (head === "loadKg") return "load";
+  if (head === "athleteId") return "athlete";
   return (SET_FORM_FIELDS as readonly string[]).includes(head) ? (head as SetFormField) : "note";
 }
 
@@ -46,6 +49,7 @@ export function todayLocal(now = new Date()): string {
 
 export function defaultSetFormValues(unit: UnitPreference, teamId: string | null): SetFormValues {
   return {
+    athlete: "",
     teamId: teamId ?? "",
     sessionDate: todayLocal(),
     lift: "squat",
@@ -64,6 +68,7 @@ const numberIssue = (ctx: z.RefinementCtx, path: SetFormField, message: string) 
 /** The form's zod schema: typed strings in, the API's CreateSetData (SI) out. */
 export const setFormSchema = z
   .object({
+    athlete: z.string(),
     teamId: z.string(),
     sessionDate: z.string(),
     lift: z.enum(LIFTS, { error: "Choose squat, bench or deadlift." }),
@@ -85,8 +90,11 @@ export const setFormSchema = z
     else if (Number.isNaN(reps)) numberIssue(ctx, "reps", "Enter a whole number.");
     if (rpe !== null && Number.isNaN(rpe)) numberIssue(ctx, "rpe", "Enter a number, like 8.5.");
     if (ctx.issues.length > 0) return z.NEVER;
+    // Recording for an athlete files the set under the team they were picked from.
+    const [forTeamId, forAthleteId] = values.athlete ? values.athlete.split("/") : [null, null];
     const parsed = createSetSchema.safeParse({
-      teamId: values.teamId || null,
+      teamId: forTeamId ?? (values.teamId || null),
+      athleteId: forAthleteId ?? null,
       sessionDate: values.sessionDate,
       lift: values.lift,
       variant: values.variant.trim() || null,
@@ -100,3 +108,8 @@ export const setFormSchema = z
     for (const issue of parsed.error.issues) numberIssue(ctx, fieldOfPath(issue.path), issue.message);
     return z.NEVER;
   });
+
+/** The picker's value for an athlete of a team. */
+export function athleteChoice(teamId: string, athleteId: string): string {
+  return `${teamId}/${athleteId}`;
+}

@@ -75,7 +75,7 @@ export const DEMO_ATHLETES: DemoPerson[] = [
   },
 ];
 
-type DemoSet = Omit<CreateSetData, "teamId" | "sessionDate" | "recordedAt">;
+type DemoSet = Omit<CreateSetData, "teamId" | "athleteId" | "sessionDate" | "recordedAt">;
 
 /** Sessions per athlete: days before the first seeding, and the sets done that day. */
 const DEMO_SESSIONS: { athleteIndex: number; daysAgo: number; sets: DemoSet[] }[] = [

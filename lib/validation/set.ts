@@ -14,6 +14,8 @@ export type ClipStatus = (typeof CLIP_STATUSES)[number];
 
 export const createSetSchema = z.object({
   teamId: uuidSchema.nullable().default(null),
+  /** A coach (or admin) recording for one of the team's athletes; absent: the set is the viewer's own. */
+  athleteId: userIdSchema.nullable().default(null),
   sessionDate: z.iso.date({ error: "Enter the session date as YYYY-MM-DD." }),
   lift: z.enum(LIFTS, { error: "Choose squat, bench or deadlift." }),
   variant: z.string().trim().max(60, { error: "Use at most 60 characters." }).nullable().default(null),

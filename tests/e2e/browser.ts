@@ -14,6 +14,10 @@ const CHROMIUM_ARGS = [
   "--disable-quic",
 ];
 
-export function launchBrowser(): Promise<Browser> {
-  return chromium.launch({ executablePath: CHROMIUM_PATH, headless: true, args: CHROMIUM_ARGS });
+/** Chromium's own test camera (a moving pattern), granted without a permission prompt. */
+const FAKE_CAMERA_ARGS = ["--use-fake-device-for-media-stream", "--use-fake-ui-for-media-stream"];
+
+export function launchBrowser(options: { fakeCamera?: boolean } = {}): Promise<Browser> {
+  const args = options.fakeCamera ? [...CHROMIUM_ARGS, ...FAKE_CAMERA_ARGS] : CHROMIUM_ARGS;
+  return chromium.launch({ executablePath: CHROMIUM_PATH, headless: true, args });
 }

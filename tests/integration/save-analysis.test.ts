@@ -121,7 +121,9 @@ describe("POST and GET /api/sets/[setId]/analysis", () => {
     }
     expect(analysis.set.repCount).toBe(3);
     expect(analysis.set.velocityLossPct).toBe(threeReps.result.set.velocityLossPct);
+    // The per-frame bar positions keep the route's shape ([{ t, bar: { x, y } | null }]) and every digit.
     expect(analysis.frames?.length).toBe(threeReps.result.frames?.length);
+    expect(analysis.frames).toEqual(JSON.parse(JSON.stringify(threeReps.result.frames)));
     expect(analysis.cautions).toEqual(threeReps.result.cautions);
 
     const stored = await (await fetch(trackUrl as string)).json();

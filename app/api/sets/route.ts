@@ -1,5 +1,6 @@
-// GET /api/sets: the sets the viewer may read (filters athleteId, teamId); POST /api/sets: record a set's metadata.
-import { requireAthleteAccess, requireAthleteOf, requireSession, requireTeamMember, requireUploadAllowed } from "@/lib/access";
+// GET /api/sets: the sets the viewer may read (filters athleteId, teamId); POST /api/sets: record a set's metadata
+// (an athlete's own, or a coach's for one of the team's athletes).
+import { requireAthleteAccess, requireSession, requireSetOwner, requireTeamMember, requireUploadAllowed } from "@/lib/access";
 import { parseOrThrow, readJson, withErrors } from "@/lib/errors";
 import { createSetSchema, setListQuerySchema } from "@/lib/validation/set";
 import { createSet, listSets } from "@/db/queries/sets";
@@ -16,7 +17,7 @@ export const GET = withErrors(async (request: Request) => {
 export const POST = withErrors(async (request: Request) => {
   const viewer = await requireSession(request);
   const data = parseOrThrow(createSetSchema, await readJson(request, "set"), "set");
-  if (data.teamId) await requireAthleteOf(viewer, data.teamId);
-  await requireUploadAllowed(viewer, { athleteId: viewer.userId, teamId: data.teamId ?? null });
-  return Response.json({ set: await createSet(viewer.userId, data) }, { status: 201 });
+  const athleteId = await requireSetOwner(viewer, data);
+  await requireUploadAllowed(viewer, { athleteId, teamId: data.teamId ?? null });
+  return Response.json({ set: await createSet(athleteId, data, { createdBy: viewer.userId }) }, { status: 201 });
 });

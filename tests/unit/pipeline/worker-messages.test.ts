@@ -18,6 +18,17 @@ describe("worker requests", () => {
     expect(workerRequestSchema.parse(base)).toMatchObject({ bar: null });
   });
 
+  it("accepts frames decoded on the page, and refuses pixels that do not fill the frame", () => {
+    const base = { type: "analyse-frames", jobId: "set-3", lift: "squat", view: "side", source: { width: 1280, height: 720, fps: 30, durationS: 12 } };
+    expect(workerRequestSchema.parse(base)).toMatchObject({ type: "analyse-frames", precise: false, bar: null });
+    const frame = { type: "frame", jobId: "set-3", tS: 0.5, width: 4, height: 2, data: new Uint8ClampedArray(32) };
+    expect(workerRequestSchema.parse(frame).type).toBe("frame");
+    expect(workerRequestSchema.safeParse({ ...frame, data: new Uint8ClampedArray(31) }).success).toBe(false);
+    expect(workerRequestSchema.safeParse({ ...frame, data: [0, 0, 0, 0] }).success).toBe(false);
+    expect(workerRequestSchema.parse({ type: "frames-end", jobId: "set-3" }).type).toBe("frames-end");
+    expect(parseWorkerResponse({ type: "frame-taken", jobId: "set-3", framesTaken: 3 }).type).toBe("frame-taken");
+  });
+
   it("accepts a cancel", () => {
     expect(workerRequestSchema.parse({ type: "cancel", jobId: "set-1" })).toEqual({ type: "cancel", jobId: "set-1" });
   });

@@ -1,0 +1,2 @@
+ALTER TABLE "analyses" ADD COLUMN "bar_frames" "bytea";--> statement-breakpoint
+ALTER TABLE "analyses" DROP COLUMN "frames";

@@ -1,5 +1,5 @@
 // The printable set report: the set's facts, key frames of each rep, the rep and set measures, the flags
-// with their rule and source, the coach's markup (slot) and the cautions. Print stylesheet beside it.
+// with their rule and source, the coach's summary and markup, and the cautions. Print stylesheet beside it.
 import "./print.css";
 import type { Metadata } from "next";
 import { notFound } from "next/navigation";
@@ -13,8 +13,10 @@ import { getAnalysis } from "@/db/queries/analyses";
 import { clipStateOf } from "@/db/queries/clips";
 import { getPreferences } from "@/db/queries/preferences";
 import { getSetSummary } from "@/db/queries/sets";
+import { listMarkup } from "@/db/queries/markup";
+import { getReview } from "@/db/queries/reviews";
 import { KeyFrames } from "@/components/print/key-frames";
-import { PrintMarkupSlot } from "@/components/print/markup-slot";
+import { PrintReviewNotes } from "@/components/print/review-notes";
 import { PrintButton } from "@/components/print/print-button";
 import { Caution } from "@/components/ui/banner";
 import { formatDay } from "@/components/ui/date-text";
@@ -28,12 +30,16 @@ export default async function PrintSetPage({ params }: { params: Promise<{ setId
     if (error instanceof ApiError) notFound();
     throw error;
   });
-  const [summary, analysis, units, clip] = await Promise.all([
+  const [summary, analysis, units, clip, review, shapes] = await Promise.all([
     getSetSummary(set.id),
     getAnalysis(set.id, { frames: false }),
     getPreferences(viewer.userId),
     clipView(clipStateOf(set)),
+    getReview(set.id),
+    listMarkup(set.id),
   ]);
+  // The athlete reads the summary only once it is sent, as on the review page.
+  const readableReview = set.athleteId !== viewer.userId || review.status === "answered" || review.status === "seen" ? review : null;
   if (!summary) notFound();
   const measures = COMPARE_MEASURES.filter((m) => analysis?.reps.some((r) => r[m.key] !== null));
   const flags = analysis ? [...analysis.reps.flatMap((r) => r.flags), ...(analysis.set?.flags ?? [])] : [];
@@ -142,7 +148,7 @@ export default async function PrintSetPage({ params }: { params: Promise<{ setId
             </section>
           ) : null}
 
-          <PrintMarkupSlot setId={set.id} />
+          <PrintReviewNotes review={readableReview} shapes={shapes} metresPerPixel={analysis.scale.metresPerPixel} />
 
           <section className="grid gap-1 text-xs text-ink-muted">
             {analysis.cautions.map((c) => (

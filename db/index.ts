@@ -3,7 +3,10 @@
 import pg from "pg";
 import { drizzle, type NodePgDatabase } from "drizzle-orm/node-postgres";
 import { databaseUrl } from "@/lib/dev/database-url";
-import * as schema from "./schema";
+import * as baseSchema from "./schema";
+import * as hardeningSchema from "./schema-hardening";
+
+const schema = { ...baseSchema, ...hardeningSchema };
 
 export type Database = NodePgDatabase<typeof schema>;
 /** A transaction handle; query helpers accept either, so they compose inside one transaction. */

@@ -2,7 +2,7 @@
 // set measures) and read back whole. Re-analysis replaces the old one under a lock on the set row,
 // so concurrent saves leave exactly one consistent analysis.
 import "server-only";
-import { and, asc, eq, getTableColumns, inArray, sql } from "drizzle-orm";
+import { and, asc, eq, getTableColumns, sql } from "drizzle-orm";
 import { db, type Transaction } from "@/db";
 import { analyses, repSeries, reps, setMeasures, sets, type Analysis, type NewRep, type Rep, type SetMeasures } from "@/db/schema";
 import type { AnalysisResult, RepResult } from "@/lib/analysis/result";
@@ -197,18 +197,32 @@ const { frames: _frames, ...measureColumns } = getTableColumns(analyses);
  * The set's current analysis, or null when the set is not analysed yet. The per-frame bar positions are
  * most of its bytes: callers that only need the measures leave them out (`frames: false`).
  */
-export async function getAnalysis(setId: string, { frames = true }: { frames?: boolean } = {}): Promise<StoredAnalysis | null> {
+export async function getAnalysis(setId: string, options: { frames?: boolean } = {}): Promise<StoredAnalysis | null> {
+  return (await getAnalysisWithTrackKey(setId, options))?.analysis ?? null;
+}
+
+/**
+ * The current analysis and the key of its track object, in two round trips: the analysis row, then its
+ * reps, series and measures at once (the series found through their reps' analysis id).
+ */
+export async function getAnalysisWithTrackKey(
+  setId: string,
+  { frames = true }: { frames?: boolean } = {},
+): Promise<{ analysis: StoredAnalysis; trackStorageKey: string | null } | null> {
   const [analysis] = await db
     .select({ ...measureColumns, frames: frames ? analyses.frames : sql<null>`null` })
     .from(analyses)
     .where(and(eq(analyses.setId, setId), eq(analyses.isCurrent, true)));
   if (!analysis) return null;
-  const [repRows, measureRows] = await Promise.all([
+  const [repRows, measureRows, seriesRowsFound] = await Promise.all([
     db.select().from(reps).where(eq(reps.analysisId, analysis.id)).orderBy(asc(reps.repIndex)),
     db.select().from(setMeasures).where(eq(setMeasures.analysisId, analysis.id)),
+    db
+      .select(getTableColumns(repSeries))
+      .from(repSeries)
+      .innerJoin(reps, eq(reps.id, repSeries.repId))
+      .where(eq(reps.analysisId, analysis.id)),
   ]);
-  const seriesRowsFound =
-    repRows.length > 0 ? await db.select().from(repSeries).where(inArray(repSeries.repId, repRows.map((r) => r.id))) : [];
   const seriesByRep = new Map<string, Partial<Record<StoredSeriesName, number[]>>>();
   for (const row of seriesRowsFound) {
     if (row.points.length !== SERIES_POINTS) continue;
@@ -216,7 +230,7 @@ export async function getAnalysis(setId: string, { frames = true }: { frames?: b
     bucket[row.name as StoredSeriesName] = row.points;
     seriesByRep.set(row.repId, bucket);
   }
-  return {
+  const stored: StoredAnalysis = {
     id: analysis.id,
     setId: analysis.setId,
     model: analysis.model,
@@ -237,13 +251,6 @@ export async function getAnalysis(setId: string, { frames = true }: { frames?: b
     reps: repRows.map(({ analysisId: _a, createdAt: _c, ...rep }) => ({ ...rep, series: seriesByRep.get(rep.id) ?? {} })),
     set: measureRows[0] ? withoutAnalysisId(measureRows[0]) : null,
   };
+  return { analysis: stored, trackStorageKey: analysis.trackStorageKey };
 }
 
-/** The track object of the set's current analysis, if any. */
-export async function currentTrackKey(setId: string): Promise<string | null> {
-  const [row] = await db
-    .select({ key: analyses.trackStorageKey })
-    .from(analyses)
-    .where(and(eq(analyses.setId, setId), eq(analyses.isCurrent, true)));
-  return row?.key ?? null;
-}

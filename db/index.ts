@@ -8,6 +8,7 @@ import * as billingSchema from "./schema-billing";
 import * as reviewSchema from "./schema-review";
 import * as markupSchema from "./schema-markup";
 import * as preferencesSchema from "./schema-preferences";
+import * as hardeningSchema from "./schema-hardening";
 
 // One typed client over every area's tables: one spread line per area schema file (db/schema-<area>.ts).
 const schema = {
@@ -16,6 +17,7 @@ const schema = {
   ...reviewSchema,
   ...markupSchema,
   ...preferencesSchema,
+  ...hardeningSchema,
 };
 
 export type Database = NodePgDatabase<typeof schema>;

@@ -11,6 +11,7 @@ import { db } from "@/db";
 import { account, session, user, verification } from "@/db/schema";
 import { resetPasswordMail, sendMail, verifyEmailMail, type MailContent } from "@/lib/mail";
 import { PASSWORD_MAX_LENGTH, PASSWORD_MIN_LENGTH } from "@/lib/validation/auth";
+import { rateRule, type RateName } from "@/lib/limits";
 
 // Development-only secret, so a fresh checkout runs without configuration. Never valid in production.
 const DEV_SECRET = "plumbline-dev-only-zC8adtz2M6BYKd6K5huVUwjY2FZl/XvftD5ipAWqOmO5";
@@ -35,6 +36,12 @@ async function deliver(to: string, content: MailContent): Promise<void> {
   }
 }
 
+/** better-auth's rule for a path from ours, read per request so a changed environment applies at once. */
+const ruleOf = (name: RateName) => () => {
+  const rule = rateRule(name);
+  return { window: rule.durationS, max: rule.points };
+};
+
 export const auth = betterAuth({
   appName: "Plumbline",
   baseURL: AUTH_BASE_URL,
@@ -53,6 +60,13 @@ export const auth = betterAuth({
     sendOnSignUp: true,
     autoSignInAfterVerification: true,
     sendVerificationEmail: ({ user: person, url }) => deliver(person.email, verifyEmailMail(person.name, url)),
+  },
+  // better-auth's own limiter, on in every environment (its default is production only), keyed by client
+  // address; the in-memory store suits this single-process app (see lib/rate-limit.ts).
+  rateLimit: {
+    enabled: true,
+    storage: "memory",
+    customRules: { "/sign-in/*": ruleOf("signIn"), "/sign-up/*": ruleOf("signUp") },
   },
   plugins: [admin({ defaultRole: "user", adminRoles: ["admin"] }), nextCookies()],
 });

@@ -9,6 +9,7 @@ export type ErrorKind =
   | "not_found"
   | "conflict"
   | "gone"
+  | "too_large"
   | "rate_limited"
   | "unavailable";
 
@@ -22,6 +23,7 @@ const STATUS: Record<ErrorKind, number> = {
   not_found: 404,
   conflict: 409,
   gone: 410,
+  too_large: 413,
   rate_limited: 429,
   unavailable: 503,
 };
@@ -72,13 +74,84 @@ export function parseOrThrow<S extends z.ZodType>(schema: S, input: unknown, res
   return result.data;
 }
 
-/** Reads a JSON body; a missing or malformed body is a 400, not a crash. */
-export async function readJson(request: Request, resource: string): Promise<unknown> {
+/** Largest JSON body a route reads unless it says otherwise: every form here is a few kilobytes (common practice). */
+export const DEFAULT_JSON_LIMIT_BYTES = 256 * 1024;
+
+function tooLarge(resource: string, limitBytes: number): ApiError {
+  return new ApiError(`too_large:${resource}`, `The request is larger than ${Math.round(limitBytes / 1024)} KB.`);
+}
+
+/** The body as UTF-8 text, reading no further than the limit (a missing or lying Content-Length changes nothing). */
+async function readText(request: Request, resource: string, limitBytes: number): Promise<string> {
+  if (Number(request.headers.get("content-length") ?? 0) > limitBytes) throw tooLarge(resource, limitBytes);
+  if (!request.body) return "";
+  const reader = request.body.getReader();
+  const decoder = new TextDecoder("utf-8", { fatal: true });
+  const pieces: string[] = [];
+  let total = 0;
   try {
-    return await request.json();
+    for (;;) {
+      const { done, value } = await reader.read();
+      if (done) break;
+      total += value.byteLength;
+      if (total > limitBytes) {
+        await reader.cancel();
+        throw tooLarge(resource, limitBytes);
+      }
+      pieces.push(decoder.decode(value, { stream: true }));
+    }
+    pieces.push(decoder.decode());
+  } catch (error) {
+    if (error instanceof ApiError) throw error;
+    throw new ApiError(`bad_request:${resource}`, "The request body must be UTF-8 text.");
+  }
+  return pieces.join("");
+}
+
+/**
+ * The path of the first string (value or key) PostgreSQL could not store as it was sent: a NUL character,
+ * or a lone UTF-16 surrogate that JSON allows as an escape but UTF-8 cannot encode. Null when all are fine.
+ */
+export function findUnstorableText(value: unknown): string | null {
+  const stack: { value: unknown; path: string }[] = [{ value, path: "" }];
+  const bad = (text: string) => text.includes("\u0000") || !text.isWellFormed();
+  while (stack.length > 0) {
+    const { value: current, path } = stack.pop() as { value: unknown; path: string };
+    if (typeof current === "string") {
+      if (bad(current)) return path || "_";
+    } else if (Array.isArray(current)) {
+      for (let i = current.length - 1; i >= 0; i--) stack.push({ value: current[i], path: path ? `${path}.${i}` : String(i) });
+    } else if (current !== null && typeof current === "object") {
+      for (const [key, item] of Object.entries(current)) {
+        const at = path ? `${path}.${key}` : key;
+        if (bad(key)) return at;
+        stack.push({ value: item, path: at });
+      }
+    }
+  }
+  return null;
+}
+
+/**
+ * Reads a JSON body: a missing, malformed, oversized or non-UTF-8 body is a 4xx, never a crash, and text
+ * that could not be stored verbatim (NUL, lone surrogates) is refused here for every route at once.
+ */
+export async function readJson(request: Request, resource: string, limitBytes = DEFAULT_JSON_LIMIT_BYTES): Promise<unknown> {
+  const text = await readText(request, resource, limitBytes);
+  let value: unknown;
+  try {
+    value = JSON.parse(text);
   } catch {
     throw new ApiError(`bad_request:${resource}`, "The request body must be JSON.");
   }
+  // The text decoded as strict UTF-8 and JSON allows no raw control characters, so NUL and lone surrogates
+  // can only arrive as \u escapes: a body without any (nearly all of them) needs no walk through its values.
+  const unstorable = text.includes("\\u") ? findUnstorableText(value) : null;
+  if (unstorable !== null) {
+    const message = "Text may not contain NUL characters or broken Unicode (lone surrogates).";
+    throw new ApiError(`bad_request:${resource}`, `Please check the form: ${message}`, { [unstorable]: message });
+  }
+  return value;
 }
 
 /** Any thrown value becomes a JSON error response; unexpected ones are logged and hidden behind a 500. */

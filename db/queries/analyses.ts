@@ -198,7 +198,18 @@ const { barFrames: _barFrames, ...measureColumns } = getTableColumns(analyses);
  * The set's current analysis, or null when the set is not analysed yet. The per-frame bar positions are
  * most of its bytes: callers that only need the measures leave them out (`frames: false`).
  */
-export async function getAnalysis(setId: string, { frames = true }: { frames?: boolean } = {}): Promise<StoredAnalysis | null> {
+export async function getAnalysis(setId: string, options: { frames?: boolean } = {}): Promise<StoredAnalysis | null> {
+  return (await getAnalysisWithTrackKey(setId, options))?.analysis ?? null;
+}
+
+/**
+ * The current analysis and the key of its track object, in two round trips: the analysis row, then its
+ * reps, series and measures at once (the series found through their reps' analysis id).
+ */
+export async function getAnalysisWithTrackKey(
+  setId: string,
+  { frames = true }: { frames?: boolean } = {},
+): Promise<{ analysis: StoredAnalysis; trackStorageKey: string | null } | null> {
   const [analysis] = await db
     .select({ ...measureColumns, barFrames: frames ? analyses.barFrames : sql<null>`null` })
     .from(analyses)
@@ -221,7 +232,7 @@ export async function getAnalysis(setId: string, { frames = true }: { frames?: b
     bucket[row.name as StoredSeriesName] = row.points;
     seriesByRep.set(row.repId, bucket);
   }
-  return {
+  const stored: StoredAnalysis = {
     id: analysis.id,
     setId: analysis.setId,
     model: analysis.model,
@@ -242,13 +253,6 @@ export async function getAnalysis(setId: string, { frames = true }: { frames?: b
     reps: repRows.map(({ analysisId: _a, createdAt: _c, ...rep }) => ({ ...rep, series: seriesByRep.get(rep.id) ?? {} })),
     set: measureRows[0] ? withoutAnalysisId(measureRows[0]) : null,
   };
+  return { analysis: stored, trackStorageKey: analysis.trackStorageKey };
 }
 
-/** The track object of the set's current analysis, if any. */
-export async function currentTrackKey(setId: string): Promise<string | null> {
-  const [row] = await db
-    .select({ key: analyses.trackStorageKey })
-    .from(analyses)
-    .where(and(eq(analyses.setId, setId), eq(analyses.isCurrent, true)));
-  return row?.key ?? null;
-}

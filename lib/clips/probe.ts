@@ -73,3 +73,27 @@ export async function probeClip(url: string): Promise<ClipProbe> {
     heightPx: turned ? stream.width : stream.height,
   };
 }
+
+/**
+ * Where the video's pictures really end, in seconds: the end of the last packet ffprobe can read, from
+ * `fromS` on (it seeks, so only the clip's tail is fetched). A file cut short keeps its header's full
+ * duration but its pictures stop where the bytes do.
+ */
+export async function lastPictureEndS(url: string, fromS: number): Promise<number> {
+  let stdout: string;
+  try {
+    ({ stdout } = await run(
+      "ffprobe",
+      ["-v", "quiet", "-read_intervals", `${Math.max(0, fromS).toFixed(3)}%`, "-select_streams", "v:0", "-show_entries", "packet=pts_time,duration_time", "-of", "csv=p=0", url],
+      { timeout: PROBE_TIMEOUT_MS, maxBuffer: 16 * 1024 * 1024 },
+    ));
+  } catch {
+    throw new ClipProbeError("The video could not be read: the file may be damaged or cut short. Export it again and retry.");
+  }
+  let end = 0;
+  for (const line of stdout.split("\n")) {
+    const [pts, duration] = line.split(",").map(Number);
+    if (Number.isFinite(pts)) end = Math.max(end, pts + (Number.isFinite(duration) ? duration : 0));
+  }
+  return end;
+}

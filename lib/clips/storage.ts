@@ -112,8 +112,22 @@ export async function deleteObject(key: string): Promise<void> {
     .catch(() => undefined);
 }
 
-export function presignRead(key: string, ttlS = READ_URL_TTL_S): Promise<string> {
-  return getSignedUrl(s3Client(), new GetObjectCommand({ Bucket: bucket(), Key: key }), { expiresIn: ttlS });
+/**
+ * Signing takes milliseconds of CPU on every read of an analysis; a URL is handed out again while at least
+ * half of its life remains. Access is checked before this is called, and each URL still opens one key only.
+ */
+const readUrls = new Map<string, { url: string; reuseUntilMs: number }>();
+const MAX_CACHED_READ_URLS = 10_000;
+
+export async function presignRead(key: string, ttlS = READ_URL_TTL_S): Promise<string> {
+  const id = `${ttlS}:${key}`;
+  const now = Date.now();
+  const cached = readUrls.get(id);
+  if (cached && cached.reuseUntilMs > now) return cached.url;
+  const url = await getSignedUrl(s3Client(), new GetObjectCommand({ Bucket: bucket(), Key: key }), { expiresIn: ttlS });
+  if (readUrls.size >= MAX_CACHED_READ_URLS) readUrls.clear();
+  readUrls.set(id, { url, reuseUntilMs: now + (ttlS * 1000) / 2 });
+  return url;
 }
 
 export async function putJson(key: string, value: unknown): Promise<void> {

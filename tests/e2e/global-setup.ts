@@ -33,7 +33,10 @@ export default async function setup(project: TestProject): Promise<() => Promise
   const port = await freePort();
   const baseUrl = `http://127.0.0.1:${port}`;
   fakes.setAppUrl(baseUrl);
-  const env = { ...process.env, ...fakes.env, DATABASE_URL: databaseUrl, BETTER_AUTH_URL: baseUrl, NODE_ENV: "production" as const, NEXT_TELEMETRY_DISABLED: "1" };
+  const env = { ...process.env, ...fakes.env, DATABASE_URL: databaseUrl, BETTER_AUTH_URL: baseUrl, NODE_ENV: "production" as const, NEXT_TELEMETRY_DISABLED: "1",
+    // The browser tests sign several people up and in from one address.
+    PLUMBLINE_RATE_LIMIT_FACTOR: process.env.PLUMBLINE_RATE_LIMIT_FACTOR ?? "1000",
+  };
   // The worker and the pose models are served from public/: both must be there before `next build`.
   await ensureModels();
   await buildAnalysisWorker();

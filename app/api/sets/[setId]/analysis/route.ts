@@ -6,7 +6,7 @@ import { requireSession, requireSetAccess, requireSetReader } from "@/lib/access
 import { ApiError, parseOrThrow, readJson, withErrors } from "@/lib/errors";
 import { saveAnalysisSchema } from "@/lib/validation/analysis";
 import { parseTrack, TrackInputError } from "@/lib/analysis/track";
-import { currentTrackKey, getAnalysis, saveAnalysis } from "@/db/queries/analyses";
+import { getAnalysis, getAnalysisWithTrackKey, saveAnalysis } from "@/db/queries/analyses";
 import { engineViewFor } from "@/lib/clips/analysis-view";
 import { deleteObject, folderOf, presignRead, putJson } from "@/lib/clips/storage";
 import type { LiftSet } from "@/db/schema";
@@ -20,10 +20,10 @@ export const GET = withErrors(async (request: Request, { params }: Context) => {
   const viewer = await requireSession(request);
   // Reading also admits teammates while the set is shared for peer review; writes keep requireSetAccess.
   const { set } = await requireSetReader(viewer, (await params).setId);
-  const analysis = await getAnalysis(set.id);
-  if (!analysis) throw new ApiError("not_found:analysis", "This set has not been analysed yet.");
-  const trackKey = await currentTrackKey(set.id);
-  return Response.json({ analysis, trackUrl: trackKey ? await presignRead(trackKey) : null });
+  const found = await getAnalysisWithTrackKey(set.id);
+  if (!found) throw new ApiError("not_found:analysis", "This set has not been analysed yet.");
+  const { analysis, trackStorageKey } = found;
+  return Response.json({ analysis, trackUrl: trackStorageKey ? await presignRead(trackStorageKey) : null });
 });
 
 function checkMatchesSet(set: LiftSet, lift: string, view: string): void {
@@ -44,10 +44,7 @@ function readTrack(input: unknown) {
 export const POST = withErrors(async (request: Request, { params }: Context) => {
   const viewer = await requireSession(request);
   const set = await requireSetAccess(viewer, (await params).setId);
-  if (Number(request.headers.get("content-length") ?? 0) > MAX_BODY_BYTES) {
-    throw new ApiError("bad_request:analysis", "The analysis is too large to save.");
-  }
-  const body = parseOrThrow(saveAnalysisSchema, await readJson(request, "analysis"), "analysis");
+  const body = parseOrThrow(saveAnalysisSchema, await readJson(request, "analysis", MAX_BODY_BYTES), "analysis");
   const track = readTrack(body.track);
   checkMatchesSet(set, body.result.settings.lift, body.result.settings.view);
   if (track.lift !== set.lift || track.view !== body.result.settings.view) {

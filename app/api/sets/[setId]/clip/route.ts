@@ -7,6 +7,8 @@ import { beginClipUpload, clipStateOf, dropClipUpload, requireCurrentUpload } fr
 import { CLIP_PART_BYTES, partCountFor } from "@/lib/clips/limits";
 import { abortMultipartUpload, createMultipartUpload, deleteObject, newClipFolder } from "@/lib/clips/storage";
 import { clipView } from "@/lib/clips/view";
+import { consumeRate } from "@/lib/rate-limit";
+import { reserveUpload } from "@/db/queries/upload-quota";
 
 type Context = { params: Promise<{ setId: string }> };
 
@@ -22,6 +24,8 @@ export const POST = withErrors(async (request: Request, { params }: Context) => 
   const set = await requireSetAccess(viewer, (await params).setId);
   await requireUploadAllowed(viewer, set);
   const data = parseOrThrow(startClipUploadSchema, await readJson(request, "clip"), "clip");
+  await consumeRate("clipUpload", viewer.userId, "rate_limited:upload", "clip uploads");
+  await reserveUpload(set, viewer.userId, data.sizeBytes);
   // No extension: the name the browser gave says nothing; the content is checked on completion.
   const storageKey = `${newClipFolder(set.id)}original`;
   const uploadId = await createMultipartUpload(storageKey, "application/octet-stream");

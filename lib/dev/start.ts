@@ -20,9 +20,11 @@ if (!process.env.DATABASE_URL) ensureLocalPostgres();
 const url = databaseUrl();
 await ensureDatabase(url);
 await migrateDatabase(url);
-await seedDemoData(url);
+// The fakes first: the demo seed stores its clips in the object-storage fake.
 const fakes = await startFakes({ ephemeral: false });
 log(`mail fake: read sent mails at ${fakes.mailUrl}`);
+Object.assign(process.env, fakes.env);
+await seedDemoData(url);
 
 const appEnv = { ...process.env, ...fakes.env, DATABASE_URL: url, NEXT_TELEMETRY_DISABLED: "1" };
 const jobs = spawnJobRunner(appEnv);

@@ -27,7 +27,8 @@ export default defineConfig({
         },
       },
       {
-        resolve: { alias },
+        // The browser tests load the demo seed, which saves analyses through the server's queries.
+        resolve: { alias: { ...alias, "server-only": path.resolve(import.meta.dirname, "node_modules/server-only/empty.js") } },
         test: {
           name: "e2e",
           include: ["tests/e2e/**/*.test.ts"],

@@ -162,11 +162,19 @@ export async function saveAnalysis(viewer: Viewer, setId: string, input: NewAnal
     if (set.clipStatus !== "uploaded" && set.clipStatus !== "ready") {
       throw new ApiError("conflict:analysis", "The set has no checked clip to analyse yet. Upload the clip first.");
     }
-    const replaced = await tx.delete(analyses).where(eq(analyses.setId, setId)).returning({ trackStorageKey: analyses.trackStorageKey });
-    const analysisId = await insertAnalysis(tx, viewer, setId, input);
-    await tx.update(sets).set({ status: "analysed" }).where(eq(sets.id, setId));
-    return { analysisId, replacedTrackKeys: replaced.flatMap((r) => (r.trackStorageKey ? [r.trackStorageKey] : [])) };
+    return replaceAnalysis(tx, viewer, setId, input);
   });
+}
+
+/**
+ * saveAnalysis's writes inside the caller's transaction, for a caller that has already locked and
+ * checked the set (the demo seed, which writes its sets and their analyses together).
+ */
+export async function replaceAnalysis(tx: Transaction, viewer: Viewer, setId: string, input: NewAnalysisInput): Promise<SavedAnalysis> {
+  const replaced = await tx.delete(analyses).where(eq(analyses.setId, setId)).returning({ trackStorageKey: analyses.trackStorageKey });
+  const analysisId = await insertAnalysis(tx, viewer, setId, input);
+  await tx.update(sets).set({ status: "analysed" }).where(eq(sets.id, setId));
+  return { analysisId, replacedTrackKeys: replaced.flatMap((r) => (r.trackStorageKey ? [r.trackStorageKey] : [])) };
 }
 
 export type StoredRep = Omit<Rep, "analysisId" | "createdAt"> & { series: Partial<Record<StoredSeriesName, number[]>> };

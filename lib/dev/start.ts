@@ -20,10 +20,12 @@ if (!process.env.DATABASE_URL) ensureLocalPostgres();
 const url = databaseUrl();
 await ensureDatabase(url);
 await migrateDatabase(url);
-await seedDemoData(url);
+// The fakes first: the demo seed stores its clips in the object-storage fake.
 const fakes = await startFakes({ ephemeral: false, appUrl: "http://127.0.0.1:3000" });
 log(`mail fake: read sent mails at ${fakes.mailUrl}`);
 log(`payment fake: ${fakes.paymentsUrl} (hosted checkout and portal pages; webhooks to the app)`);
+Object.assign(process.env, fakes.env);
+await seedDemoData(url);
 
 const appEnv = { ...process.env, ...fakes.env, DATABASE_URL: url, NEXT_TELEMETRY_DISABLED: "1" };
 const jobs = spawnJobRunner(appEnv);

@@ -32,7 +32,8 @@ import { ensureDatabase, migrateDatabase } from "./databases";
 import { ensureLocalPostgres } from "./postgres";
 import { log } from "./run";
 import { seedBilling } from "./seed-billing";
-import { seedDemoSets } from "./seed-sets";
+import { seedDemoReviews } from "./seed-reviews";
+import { demoWaitingSetIds, seedDemoSets } from "./seed-sets";
 
 export const DEMO_PASSWORD = "plumbline-demo";
 export const DEMO_TEAM_ID = "5e1d0c0a-7c3b-4a51-9a8e-000000000001";
@@ -191,6 +192,7 @@ export async function seedDemoData(url: string, now = new Date()): Promise<void>
       await seedBilling(tx, now);
     });
     await seedDemoSets(url, now);
+    await seedDemoReviews(db, DEMO_COACH.id, DEMO_ATHLETES.map((a) => a.id), demoWaitingSetIds());
   } finally {
     await pool.end();
   }

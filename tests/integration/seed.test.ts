@@ -21,6 +21,7 @@ import {
   trainingSessions,
   user,
 } from "@/db/schema";
+import { setComments, setReviews } from "@/db/schema-review";
 import { getAnalysis } from "@/db/queries/analyses";
 import { getJson, objectSize } from "@/lib/clips/storage";
 import { DEMO_ATHLETES, DEMO_COACH, DEMO_INVITATION_TOKEN, DEMO_OPERATOR, DEMO_PASSWORD, DEMO_TEAM_ID, seedDemoData } from "@/lib/dev/seed";
@@ -50,7 +51,23 @@ afterAll(async () => {
 });
 
 async function tableCounts(): Promise<Record<string, number>> {
-  const tables = { user, account, teams, memberships, invitations, athleteProfiles, oneRepMaxes, trainingSessions, sets, analyses, reps, repSeries, setMeasures };
+  const tables = {
+    user,
+    account,
+    teams,
+    memberships,
+    invitations,
+    athleteProfiles,
+    oneRepMaxes,
+    trainingSessions,
+    sets,
+    analyses,
+    reps,
+    repSeries,
+    setMeasures,
+    setReviews,
+    setComments,
+  };
   const entries = await Promise.all(
     Object.entries(tables).map(async ([name, table]) => [name, (await db.select({ n: count() }).from(table))[0].n] as const),
   );
@@ -181,5 +198,19 @@ describe("the demo's analysed history", () => {
       // The clip shows the same motion as the track: they last as long (within a frame or two).
       expect(Math.abs(track.frames.at(-1)!.t - row.durationS!)).toBeLessThan(0.2);
     }
+  });
+
+  it("leaves only those sets waiting on the coach's desk; the rest are answered and read, with cues", async () => {
+    const waiting = demoWaitingSetIds();
+    const reviewed = await db.select({ setId: setReviews.setId, status: setReviews.status, cues: setReviews.cues }).from(setReviews);
+    const reviewedIds = new Set(reviewed.map((r) => r.setId));
+    for (const setId of waiting) expect(reviewedIds.has(setId)).toBe(false);
+    expect(reviewed.length).toBe(demoTrainingPlan().length - waiting.length);
+    for (const review of reviewed) {
+      expect(review.status).toBe("seen");
+      expect(review.cues.length).toBeGreaterThan(0);
+    }
+    const comments = await db.select({ n: count() }).from(setComments);
+    expect(comments[0].n).toBeGreaterThanOrEqual(2);
   });
 });

@@ -1,6 +1,6 @@
 // The demo data: loads into the test database, a second run changes nothing, and the demo accounts work.
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { count } from "drizzle-orm";
+import { count, eq, inArray } from "drizzle-orm";
 import type { MailFake } from "@/lib/dev/mail-fake";
 import { closeDb, db } from "@/db";
 import { account, athleteProfiles, invitations, memberships, oneRepMaxes, sets, teams, trainingSessions, user } from "@/db/schema";
@@ -14,6 +14,10 @@ let mail: MailFake;
 
 beforeAll(async () => {
   mail = await startTestMail();
+  // Another file (seed-billing.test.ts) may have loaded the demo data into this run's database already: remove it
+  // (users and the team cascade to everything else), so the first load below is a first load in any file order.
+  await db.delete(user).where(inArray(user.id, [DEMO_COACH.id, DEMO_OPERATOR.id, ...DEMO_ATHLETES.map((a) => a.id)]));
+  await db.delete(teams).where(eq(teams.id, DEMO_TEAM_ID));
 });
 
 afterAll(async () => {

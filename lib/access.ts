@@ -81,6 +81,20 @@ export function requireAthleteOf(viewer: Viewer, teamId: string): Promise<Team> 
 }
 
 /**
+ * The viewer lifts on the team, admins included only when they do: paying (checkout, the provider's portal) is the
+ * athlete's own membership, and an admin who is not an athlete of the team has none to pay.
+ */
+export async function requirePayingAthleteOf(viewer: Viewer, teamId: string): Promise<Team> {
+  const id = parseTeamId(teamId);
+  if (!(await teamRolesOf(viewer.userId, id)).includes("athlete")) {
+    throw new ApiError("forbidden:team", "Only the team's athletes pay for a membership or a review.");
+  }
+  const team = await getTeam(id);
+  if (!team) throw new ApiError("not_found:team", "There is no such team.");
+  return team;
+}
+
+/**
  * Whose a new set is: the viewer's own (filed under a team they lift on, if any), or, for a coach of the
  * team (or an admin), one of the team's athletes. Returns the athlete's id.
  */
@@ -160,8 +174,9 @@ export async function requireSetReader(viewer: Viewer, setId: string): Promise<{
   if (set.athleteId === viewer.userId) return { set, role: "athlete" };
   if (await canReadSet(viewer, set)) return { set, role: isAdmin(viewer) && !(await coachesSet(viewer, set)) ? "admin" : "coach" };
   if (set.teamId && (await teamRolesOf(viewer.userId, set.teamId)).includes("athlete")) {
-    const share = await findActiveShare(set.id);
-    if (share && share.teamId === set.teamId) return { set, role: "teammate" };
+    const [share, athleteRoles] = await Promise.all([findActiveShare(set.id), teamRolesOf(set.athleteId, set.teamId)]);
+    // Like a coach (canReadSet), teammates read only the sets of athletes still on the team: leaving ends the share.
+    if (share && share.teamId === set.teamId && athleteRoles.includes("athlete")) return { set, role: "teammate" };
   }
   throw new ApiError("forbidden:set", "You do not have access to this set.");
 }

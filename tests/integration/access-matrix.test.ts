@@ -1,7 +1,8 @@
 // Who may call what: every exported handler of every app/**/route.ts (and every server action) against seven
 // actors — signed out, athlete A, athlete B on the same team, athlete C on another team, the team's coach,
-// another team's coach and an admin. Allowed calls answer with data; refused ones with 401/403/404 and an
-// error only. A handler without a row fails the first test, so a new route cannot skip the matrix.
+// another team's coach and an admin. Allowed calls answer with data; refused ones with 401/403/404 (or a row's
+// declared other refusal, such as the unsigned webhook's 400) and an error only. A handler without a row fails
+// the first test, so a new route cannot skip the matrix.
 import { readdirSync, readFileSync } from "node:fs";
 import path from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
@@ -9,6 +10,7 @@ import { closeDb } from "@/db";
 import type { MailFake } from "@/lib/dev/mail-fake";
 import { call, startTestMail } from "./helpers";
 import { startTestStorage, type TestStorage } from "./clip-helpers";
+import { startTestPayments, type TestPayments } from "./payment-helpers";
 import { ACTIONS, EXEMPT, HTTP_METHODS, ROUTES, type RouteRow } from "./access-matrix/routes";
 import { ACTORS, buildMatrixWorld, type Actor, type MatrixWorld } from "./access-matrix/world";
 
@@ -65,15 +67,18 @@ describe("discovery", () => {
 
 let mail: MailFake;
 let storage: TestStorage;
+let pay: TestPayments;
 let w: MatrixWorld;
 
 beforeAll(async () => {
   mail = await startTestMail();
   storage = await startTestStorage();
+  pay = await startTestPayments();
   w = await buildMatrixWorld();
 }, 120_000);
 
 afterAll(async () => {
+  await pay?.stop();
   await storage?.stop();
   await mail?.stop();
   await closeDb();
@@ -93,14 +98,20 @@ describe.each(ROUTES.map((row) => [`${row.method} ${row.file}`, row] as const))(
   it.each(ACTORS.map((actor) => [actor, row.expect[actor]] as const))("%s gets %i", async (actor, status) => {
     const response = await callAs(row, actor);
     const text = await response.text();
+    await row.after?.(w, text);
     expect(response.status, text.slice(0, 300)).toBe(status);
-    const body = text ? (JSON.parse(text) as Record<string, unknown>) : null;
+    // Allowed answers may be other than JSON (the CSV export); refusals must be JSON with an error.
+    const body = text && response.headers.get("content-type")?.includes("json") ? (JSON.parse(text) as Record<string, unknown>) : null;
     if (status >= 400) {
-      expect([401, 403, 404]).toContain(status);
       expect(Object.keys(body ?? {}), "a refusal carries an error and nothing else").toEqual(["error"]);
       const error = (body as { error: Record<string, unknown> }).error;
       expect(Object.keys(error).filter((k) => !["code", "message", "fields"].includes(k))).toEqual([]);
-      expect(String(error.code)).toMatch(/^(unauthorized|forbidden|not_found):/);
+      if (row.otherRefusal && status === row.otherRefusal.status) {
+        expect(error.code).toBe(row.otherRefusal.code);
+      } else {
+        expect([401, 403, 404]).toContain(status);
+        expect(String(error.code)).toMatch(/^(unauthorized|forbidden|not_found):/);
+      }
     }
     if (OUTSIDERS_OF_SET_A.includes(actor)) {
       expect(text).not.toContain(w.setA);

@@ -22,6 +22,7 @@ import * as analysisRoute from "@/app/api/sets/[setId]/analysis/route";
 import * as invitationRoute from "@/app/api/invitations/[token]/route";
 import { BASE_URL, call, json, startTestMail } from "./helpers";
 import { startTestStorage, uploadWhole, type TestStorage } from "./clip-helpers";
+import { startTestPayments, type TestPayments } from "./payment-helpers";
 import { ROUTES, type RouteRow } from "./access-matrix/routes";
 import { OLD_DATE, buildMatrixWorld, freshSet, freshUpload, type Actor, type MatrixWorld } from "./access-matrix/world";
 
@@ -41,18 +42,21 @@ async function rowCounts(): Promise<Record<string, number>> {
 
 let mail: MailFake;
 let storage: TestStorage;
+let pay: TestPayments;
 let w: MatrixWorld;
 let workDir: string;
 
 beforeAll(async () => {
   mail = await startTestMail();
   storage = await startTestStorage();
+  pay = await startTestPayments();
   w = await buildMatrixWorld();
   workDir = mkdtempSync(path.join(tmpdir(), "plumbline-hostile-"));
 }, 120_000);
 
 afterAll(async () => {
   rmSync(workDir, { recursive: true, force: true });
+  await pay?.stop();
   await storage?.stop();
   await mail?.stop();
   await closeDb();

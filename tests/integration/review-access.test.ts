@@ -4,7 +4,7 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { and, eq } from "drizzle-orm";
 import { closeDb, db } from "@/db";
-import { sets } from "@/db/schema";
+import { memberships, sets } from "@/db/schema";
 import { setShares } from "@/db/schema-review";
 import { saveAnalysis } from "@/db/queries/analyses";
 import { analyseTrack } from "@/lib/analysis/analyse";
@@ -21,7 +21,7 @@ import * as commentRoute from "@/app/api/sets/[setId]/comments/[commentId]/route
 import * as shareRoute from "@/app/api/sets/[setId]/share/route";
 import * as analysisRoute from "@/app/api/sets/[setId]/analysis/route";
 import * as clipRoute from "@/app/api/sets/[setId]/clip/route";
-import { buildWorld, call, json, linkIn, mailTo, startTestMail, type TestPerson, type World } from "./helpers";
+import { buildWorld, call, json, linkIn, mailTo, signUp, startTestMail, type TestPerson, type World } from "./helpers";
 import { createTestSet } from "./clip-helpers";
 
 interface ReviewBody {
@@ -299,5 +299,20 @@ describe("sharing with the team", () => {
     const [record] = await db.select().from(setShares).where(and(eq(setShares.setId, setId)));
     expect(record).toMatchObject({ sharedBy: world.coachA.id, withdrawnBy: world.coachA.id, teamId: world.teamA.id });
     expect(record.withdrawnAt).not.toBeNull();
+  });
+
+  it("ends for teammates when the set's athlete leaves the team, as it does for the coach", async () => {
+    const leaver = await signUp("review-leaver");
+    await db.insert(memberships).values({ teamId: world.teamA.id, userId: leaver.id, role: "athlete" });
+    const setId = await analysedSet(leaver, world.teamA.id);
+    expect((await share(setId, world.coachA, true)).status).toBe(200);
+    expect((await getReview(setId, world.athleteA2)).status).toBe(200);
+
+    await db.delete(memberships).where(and(eq(memberships.teamId, world.teamA.id), eq(memberships.userId, leaver.id)));
+    expect((await getReview(setId, world.coachA)).status).toBe(403);
+    expect((await getReview(setId, world.athleteA2)).status).toBe(403);
+    expect((await listComments(setId, world.athleteA2)).status).toBe(403);
+    expect((await call(clipRoute.GET, "", { cookie: world.athleteA2.cookie, params: { setId } })).status).toBe(403);
+    expect((await getReview(setId, leaver)).status).toBe(200);
   });
 });

@@ -42,6 +42,10 @@ const SEED_TIMEOUT_MS = 300_000;
 beforeAll(async () => {
   mail = await startTestMail();
   storage = await startTestStorage();
+  // Another file (seed-billing.test.ts) may have loaded the demo data into this run's database already: remove it
+  // (users and the team cascade to everything else), so the first load below is a first load in any file order.
+  await db.delete(user).where(inArray(user.id, [DEMO_COACH.id, DEMO_OPERATOR.id, ...DEMO_ATHLETES.map((a) => a.id)]));
+  await db.delete(teams).where(eq(teams.id, DEMO_TEAM_ID));
 });
 
 afterAll(async () => {

@@ -105,11 +105,18 @@ export const runStatsSchema = z.object({
   poseMsMean: finite.min(0),
   trackMsMean: finite.min(0),
   poseIntervalS: finite.min(0),
+  /** Wall time waiting for the next frame (demux, decode), reading pending frames' pixels, and frames read only around the bar. */
+  frameWaitS: finite.min(0),
+  readS: finite.min(0),
+  regionFrames: z.number().int().min(0),
   poseModel: z.string(),
   /** tfjs tensors alive after the run (stays flat from clip to clip when nothing leaks). */
   liveTensors: z.number().int().min(0),
   /** Time to turn a decoded frame into a small RGBA frame, and how many came straight from YUV planes. */
   readMsMean: finite.min(0),
+  /** The two parts of reading: copying the planes out of the decoder's memory, and converting them (means over all frames). */
+  copyMsMean: finite.min(0),
+  convertMsMean: finite.min(0),
   yuvFrames: z.number().int().min(0),
   /** How the frames were decoded (lib/clips/decoder-choice.ts). */
   decoder: z.enum(FRAME_DECODERS),

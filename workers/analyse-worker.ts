@@ -1,5 +1,6 @@
-// The analysis Web Worker: decodes the clip with exact frame times (mediabunny over WebCodecs) or
-// takes frames the page decoded with its <video> element, scales frames down for tracking and pose,
+// The analysis Web Worker: has the clip decoded with exact frame times (mediabunny over WebCodecs,
+// in a decode worker it starts, workers/decode-worker.ts) or takes frames the page decoded with its
+// <video> element, scales frames down for tracking and pose,
 // runs lib/pipeline then the analysis, and reports progress, the result or an error. A "cancel"
 // message stops the running job.
 import * as tf from "@tensorflow/tfjs";
@@ -9,7 +10,7 @@ import { createBrowserPoseDetector } from "@/lib/pose/browser";
 import type { PoseDetector } from "@/lib/pose/detector";
 import { PoseWeightsMissingError } from "@/lib/pose/model-files";
 import type { FrameDecoder } from "@/lib/clips/decoder-choice";
-import { PipelineError, posePlanFor, runPipeline, type ClipFrame } from "@/lib/pipeline";
+import { PipelineError, posePlanFor, runPipeline, type PipelineFrame } from "@/lib/pipeline";
 import type { PipelineOptions } from "@/lib/pipeline/options";
 import {
   workerRequestSchema,
@@ -18,7 +19,7 @@ import {
   type RunStats,
   type WorkerResponse,
 } from "./analyse-messages";
-import { clipFrames, ClipOpenError, FrameReader, openClip } from "./clip-frames";
+import { clipFrames, ClipOpenError, DECODE_WORKER_FILE, decodeWorkerFrames, FrameReader, openClip } from "./clip-frames";
 import { FrameInbox } from "./frame-inbox";
 
 type WorkerRequestData = ReturnType<typeof workerRequestSchema.parse>;
@@ -26,10 +27,10 @@ type AnalyseJob = Extract<WorkerRequestData, { type: "analyse" | "analyse-frames
 
 /** Where one job's frames come from, and what the worker measured while reading them. */
 interface FrameFeed {
-  frames: AsyncIterable<ClipFrame>;
+  frames: AsyncIterable<PipelineFrame>;
   source: PipelineOptions["source"];
   decoder: FrameDecoder;
-  readStats: () => Pick<RunStats, "readMsMean" | "yuvFrames">;
+  readStats: () => Pick<RunStats, "readMsMean" | "copyMsMean" | "convertMsMean" | "yuvFrames">;
   close: () => void;
 }
 
@@ -61,21 +62,28 @@ function progress(job: AnalyseJob, stage: ProgressMessage["stage"], rest: Partia
 async function openFeed(job: AnalyseJob, inbox: FrameInbox | null): Promise<FrameFeed> {
   if (job.type === "analyse-frames") {
     if (!inbox) throw new Error("frames job without an inbox");
-    return { frames: inbox, source: job.source, decoder: "video-element", readStats: () => ({ readMsMean: 0, yuvFrames: 0 }), close: () => inbox.close() };
+    return { frames: inbox, source: job.source, decoder: "video-element", readStats: () => ({ readMsMean: 0, copyMsMean: 0, convertMsMean: 0, yuvFrames: 0 }), close: () => inbox.close() };
   }
   const clip = await openClip(job.clip);
   const reader = new FrameReader(clip, job.maxFrameWidthPx);
   let frameCount = 0;
   return {
     frames: (async function* () {
-      for await (const frame of clipFrames(clip, reader)) {
+      // A worker of its own decodes alongside pose where workers can start workers; otherwise this one
+      // decodes (also when loaded with ?decoder=same-worker, which the worker benchmark compares).
+      const here = typeof Worker === "undefined" || new URL(scope.location.href).searchParams.get("decoder") === "same-worker";
+      const frames = here ? clipFrames(clip, reader) : decodeWorkerFrames(job.clip, reader, new URL(DECODE_WORKER_FILE, scope.location.href));
+      for await (const frame of frames) {
         frameCount += 1;
         yield frame;
       }
     })(),
     source: { width: clip.width, height: clip.height, fps: clip.fps, durationS: clip.durationS },
     decoder: "webcodecs",
-    readStats: () => ({ readMsMean: reader.readMs / Math.max(1, frameCount), yuvFrames: reader.yuvFrames }),
+    readStats: () => {
+      const frames = Math.max(1, frameCount);
+      return { readMsMean: reader.readMs / frames, copyMsMean: reader.copyMs / frames, convertMsMean: reader.convertMs / frames, yuvFrames: reader.yuvFrames };
+    },
     close: () => clip.input.dispose(),
   };
 }

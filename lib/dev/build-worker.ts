@@ -11,10 +11,18 @@ const repoRoot = path.resolve(import.meta.dirname, "../..");
 /** Where the page loads the worker from (ANALYSIS_WORKER_URL in lib/client/analysis-runner.ts). */
 const ANALYSIS_WORKER_PATH = "workers/analyse-worker.js";
 
-/** Builds into public/ for the app, or into `outfile` (the worker benchmark's own folder). */
+/**
+ * Builds into public/ for the app, or into `outfile` (the worker benchmark's own folder); the decode
+ * worker the analysis worker starts goes beside it as decode-worker.js (DECODE_WORKER_FILE).
+ */
 export async function buildAnalysisWorker(outfile = path.join(repoRoot, "public", ANALYSIS_WORKER_PATH)): Promise<string> {
+  await Promise.all([bundle("workers/analyse-worker.ts", outfile), bundle("workers/decode-worker.ts", path.join(path.dirname(outfile), "decode-worker.js"))]);
+  return outfile;
+}
+
+async function bundle(entry: string, outfile: string): Promise<void> {
   await build({
-    entryPoints: [path.join(repoRoot, "workers/analyse-worker.ts")],
+    entryPoints: [path.join(repoRoot, entry)],
     outfile,
     bundle: true,
     format: "esm",
@@ -27,7 +35,6 @@ export async function buildAnalysisWorker(outfile = path.join(repoRoot, "public"
     define: { "process.env.NODE_ENV": '"production"', "process.env": "{}" },
     logLevel: "warning",
   });
-  return outfile;
 }
 
 if (process.argv[1] && import.meta.url === pathToFileURL(process.argv[1]).href) {

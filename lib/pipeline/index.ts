@@ -16,6 +16,8 @@ export {
   checkPipelineOptions,
   runPipeline,
   type ClipFrame,
+  type PendingFrame,
+  type PipelineFrame,
   type PipelineProgress,
   type PipelineResult,
   type PipelineRuntime,

@@ -4,7 +4,7 @@
 import { DEFAULT_MIN_SCORE } from "@/lib/analysis/resample";
 import { parseTrack, type Track, type TrackFrame } from "@/lib/analysis/track";
 import type { DetectedPose, PoseDetector } from "@/lib/pose/detector";
-import type { BarTracker, RgbaFrame } from "@/lib/tracking";
+import type { BarTracker, PixelRect, RgbaFrame } from "@/lib/tracking";
 import { frameScale, startBarTracker, toClipPoint, type FrameScale, type PlateRim } from "./bar-start";
 import { PipelineError } from "./errors";
 import { parsePipelineOptions, type PipelineOptions, type ResolvedPipelineOptions } from "./options";
@@ -16,6 +16,24 @@ export interface ClipFrame {
   /** Pixels, possibly scaled down from the clip. */
   frame: RgbaFrame;
 }
+
+/**
+ * A decoded frame whose pixels are read on demand: the pipeline asks for the whole frame only when
+ * pose runs on it (or it is the first), otherwise for the tracker's window alone.
+ */
+export interface PendingFrame {
+  /** Presentation time in seconds from the start of the clip. */
+  tS: number;
+  /** The frame with every pixel, or with only `region` filled in (other pixels hold anything). */
+  read(region: PixelRect | null): Promise<RgbaFrame>;
+  /** Frees the decoded frame; the pipeline calls it exactly once, whatever happens. */
+  release(): void;
+}
+
+export type PipelineFrame = ClipFrame | PendingFrame;
+
+/** Asks for no pixels at all: a frame that neither pose nor the tracker will look at. */
+const NO_PIXELS: PixelRect = { x: 0, y: 0, width: 0, height: 0 };
 
 export interface PipelineProgress {
   framesDone: number;
@@ -46,6 +64,11 @@ export interface PipelineStats {
   realTimeFactor: number;
   poseMsMean: number;
   trackMsMean: number;
+  /** Wall time spent waiting for the next frame (demuxing, decoding, and reading frames that come as pixels). */
+  frameWaitS: number;
+  /** Wall time spent reading the pixels of pending frames, and how many were read only around the bar. */
+  readS: number;
+  regionFrames: number;
   /** Final spacing of pose frames, clip seconds (0 = every frame). */
   poseIntervalS: number;
 }
@@ -87,6 +110,9 @@ class PipelineRun {
   barFrames = 0;
   poseMs = 0;
   trackMs = 0;
+  readMs = 0;
+  regionFrames = 0;
+  frameWaitMs = 0;
   readonly startMs = performance.now();
   lastYieldMs = this.startMs;
   lastProgressMs = -Infinity;
@@ -120,8 +146,8 @@ class PipelineRun {
     return { ...toClipPoint(this.scale, sample.x, sample.y), score: sample.score };
   }
 
-  async pose(frame: RgbaFrame, tS: number, frameIntervalS: number): Promise<TrackFrame["keypoints"]> {
-    if (!this.scale || !this.scheduler.isDue(tS, frameIntervalS)) return [];
+  async pose(frame: RgbaFrame, tS: number, due: boolean): Promise<TrackFrame["keypoints"]> {
+    if (!this.scale || !due) return [];
     const started = performance.now();
     const pose = await this.runtime.detector.estimate(frame, tS);
     const durationMs = performance.now() - started;
@@ -137,14 +163,41 @@ class PipelineRun {
       .map((k) => ({ name: k.name, x: k.x * sx, y: k.y * sy, score: Math.min(1, Math.max(0, k.score)) }));
   }
 
-  async step({ tS, frame }: ClipFrame): Promise<void> {
+  /** The region of the frame anyone will read: all of it for the first frame and pose frames. */
+  private neededRegion(poseDue: boolean): PixelRect | null {
+    if (!this.scale || poseDue) return null;
+    return this.tracker ? this.tracker.nextRegion() : NO_PIXELS;
+  }
+
+  private async pixels(input: PipelineFrame, poseDue: boolean): Promise<RgbaFrame> {
+    if ("frame" in input) return input.frame;
+    const region = this.neededRegion(poseDue);
+    const started = performance.now();
+    const frame = await input.read(region);
+    this.readMs += performance.now() - started;
+    if (region) this.regionFrames += 1;
+    return frame;
+  }
+
+  async step(input: PipelineFrame): Promise<void> {
+    try {
+      await this.stepOn(input);
+    } finally {
+      if (!("frame" in input)) input.release();
+    }
+  }
+
+  private async stepOn(input: PipelineFrame): Promise<void> {
+    const { tS } = input;
     const previous = this.frames[this.frames.length - 1];
     // Frames before the clip's start are never shown; a repeated time would break the increasing-time rule.
     if (tS < 0 || (previous && tS <= previous.t)) return;
-    if (!this.scale) this.start(frame);
     const frameIntervalS = previous ? tS - previous.t : 1 / (this.options.source.fps ?? 30);
+    const poseDue = this.scheduler.isDue(tS, frameIntervalS);
+    const frame = await this.pixels(input, poseDue);
+    if (!this.scale) this.start(frame);
     const bar = this.trackBar(frame);
-    const keypoints = await this.pose(frame, tS, frameIntervalS);
+    const keypoints = await this.pose(frame, tS, poseDue);
     this.frames.push({ t: tS, keypoints, bar });
     const wallS = (performance.now() - this.startMs) / 1000;
     this.scheduler.recordProgress(tS - this.frames[0].t, wallS - this.poseMs / 1000);
@@ -218,6 +271,9 @@ function stats(run: PipelineRun): PipelineStats {
     realTimeFactor: wallS > 0 ? clipDurationS / wallS : 0,
     poseMsMean: run.poseFrames > 0 ? run.poseMs / run.poseFrames : 0,
     trackMsMean: run.tracker && frames.length > 0 ? run.trackMs / frames.length : 0,
+    frameWaitS: run.frameWaitMs / 1000,
+    readS: run.readMs / 1000,
+    regionFrames: run.regionFrames,
     poseIntervalS: run.scheduler.intervalS,
   };
 }
@@ -234,7 +290,7 @@ export function checkPipelineOptions(input: PipelineOptions): ResolvedPipelineOp
  * Throws PipelineError for input the user can fix, and the signal's reason when aborted.
  */
 export async function runPipeline(
-  frames: AsyncIterable<ClipFrame>,
+  frames: AsyncIterable<PipelineFrame>,
   input: PipelineOptions,
   runtime: PipelineRuntime,
 ): Promise<PipelineResult> {
@@ -243,7 +299,12 @@ export async function runPipeline(
   runtime.detector.reset();
   const run = new PipelineRun(options, runtime);
   try {
-    for await (const frame of frames) await run.step(frame);
+    let waitFrom = performance.now();
+    for await (const frame of frames) {
+      run.frameWaitMs += performance.now() - waitFrom;
+      await run.step(frame);
+      waitFrom = performance.now();
+    }
   } finally {
     run.dispose();
     runtime.detector.reset();

@@ -3,7 +3,7 @@
 // spread over its k×k block and takes the chroma sample nearest the block's centre. Measured in Chromium on 2 cores, this
 // costs a few milliseconds a 720p frame where drawing the frame on a canvas and reading it back
 // costs 14–18 ms, a large share of the real-time budget at 30 fps.
-import type { RgbaFrame } from "@/lib/tracking";
+import type { PixelRect, RgbaFrame } from "@/lib/tracking";
 
 export type YuvFormat = "I420" | "NV12";
 export type QuarterTurn = 0 | 90 | 180 | 270;
@@ -27,6 +27,13 @@ export interface YuvToRgbaOptions {
   matrix: YuvMatrix;
   /** Full-range (0–255) samples instead of studio range (16–235 luma, 16–240 chroma). */
   fullRange: boolean;
+  /**
+   * Only these output pixels (upright coordinates) are converted; the rest of the output keeps
+   * what it held. The tracker reads a small window around the bar, so most frames need no more.
+   */
+  region?: PixelRect;
+  /** Output buffer to fill (reused from frame to frame to spare an allocation), of the output size. */
+  into?: Uint8ClampedArray;
 }
 
 /** Luma weights Kr and Kb: ITU-R BT.601-7 (standard definition) and ITU-R BT.709-6 (HD). */
@@ -96,18 +103,69 @@ function chromaColumns(format: YuvFormat, w: number, k: number): { u: Int32Array
  * whatever k keeps 1080p and 4K frames as cheap as 720p ones; the tracker and the pose model
  * lose nothing measurable from it on the synthetic clips.
  */
-function lumaRow(data: Uint8Array, rowStart: number, stride: number, k: number, out: Int32Array): void {
+function lumaRow(data: Uint8Array, rowStart: number, stride: number, k: number, x0: number, x1: number, out: Int32Array): void {
   if (k === 1) {
-    for (let x = 0; x < out.length; x++) out[x] = data[rowStart + x];
+    for (let x = x0; x < x1; x++) out[x] = data[rowStart + x];
     return;
   }
   const near = k >> 2;
   const far = k - 1 - near;
   const top = rowStart + near * stride;
   const bottom = rowStart + far * stride;
-  for (let x = 0, i = 0; x < out.length; x++, i += k) {
+  for (let x = x0, i = x0 * k; x < x1; x++, i += k) {
     out[x] = data[top + i + near] + data[top + i + far] + data[bottom + i + near] + data[bottom + i + far];
   }
+}
+
+/** Columns [x0, x1) and rows [y0, y1) of the unrotated w×h output grid that land in `region` of the upright output. */
+export function unrotatedRegion(region: PixelRect, w: number, h: number, rotationDeg: QuarterTurn) {
+  const outW = rotationDeg === 90 || rotationDeg === 270 ? h : w;
+  const outH = rotationDeg === 90 || rotationDeg === 270 ? w : h;
+  const ox0 = Math.max(0, Math.floor(region.x));
+  const oy0 = Math.max(0, Math.floor(region.y));
+  const ox1 = Math.min(outW, Math.ceil(region.x + region.width));
+  const oy1 = Math.min(outH, Math.ceil(region.y + region.height));
+  if (ox1 <= ox0 || oy1 <= oy0) return { x0: 0, x1: 0, y0: 0, y1: 0 };
+  // Inverse of rowPlacement: where the output's columns and rows come from.
+  switch (rotationDeg) {
+    case 0:
+      return { x0: ox0, x1: ox1, y0: oy0, y1: oy1 };
+    case 90:
+      return { x0: oy0, x1: oy1, y0: h - ox1, y1: h - ox0 };
+    case 180:
+      return { x0: w - ox1, x1: w - ox0, y0: h - oy1, y1: h - oy0 };
+    case 270:
+      return { x0: w - oy1, x1: w - oy0, y0: ox0, y1: ox1 };
+  }
+}
+
+/**
+ * The part of a visible width×height frame (pixels from its visible origin, even-aligned for 4:2:0
+ * chroma) that the upright output `region` is made from: copying only that out of the decoder
+ * spares copying whole frames when the tracker needs a small window.
+ */
+export function sourceCrop(width: number, height: number, region: PixelRect, factor: number, rotationDeg: QuarterTurn): PixelRect {
+  const grid = unrotatedRegion(region, Math.floor(width / factor), Math.floor(height / factor), rotationDeg);
+  const x0 = Math.floor((grid.x0 * factor) / 2) * 2;
+  const y0 = Math.floor((grid.y0 * factor) / 2) * 2;
+  const x1 = Math.min(width, Math.ceil((grid.x1 * factor) / 2) * 2);
+  const y1 = Math.min(height, Math.ceil((grid.y1 * factor) / 2) * 2);
+  // WebCodecs refuses an empty rectangle: an empty region still copies one 2×2 block.
+  return { x: Math.min(x0, width - 2), y: Math.min(y0, height - 2), width: Math.max(2, x1 - x0), height: Math.max(2, y1 - y0) };
+}
+
+/**
+ * Plane layouts of a copy of `crop` (as copyTo with a rect lays them out), shifted so that indexing
+ * by whole-frame coordinates lands in the copy. Only coordinates inside the crop may then be read,
+ * which yuvToRgba does when given the region the crop was made for.
+ */
+export function planesAsIfWhole(format: YuvFormat, planes: readonly { offset: number; stride: number }[], crop: PixelRect) {
+  return planes.map((plane, index) => {
+    if (index === 0) return { offset: plane.offset - crop.y * plane.stride - crop.x, stride: plane.stride };
+    // Chroma has half the rows; NV12 interleaves U and V, so its chroma rows are as many bytes wide as luma's.
+    const columnBytes = format === "NV12" ? crop.x : crop.x / 2;
+    return { offset: plane.offset - (crop.y / 2) * plane.stride - columnBytes, stride: plane.stride };
+  });
 }
 
 export function yuvToRgba(source: YuvFrame, options: YuvToRgbaOptions): RgbaFrame {
@@ -125,15 +183,17 @@ export function yuvToRgba(source: YuvFrame, options: YuvToRgbaOptions): RgbaFram
   const lumaOffset = yOffset * yScale;
   const { u: uColumns, v: vColumns } = chromaColumns(format, w, k);
   const luma = new Int32Array(w);
-  const out = new Uint8ClampedArray(w * h * 4);
-  for (let y = 0; y < h; y++) {
-    lumaRow(data, lumaPlane.offset + y * k * lumaPlane.stride, lumaPlane.stride, k, luma);
+  const out = options.into ?? new Uint8ClampedArray(w * h * 4);
+  if (out.length !== w * h * 4) throw new RangeError(`into: expected ${w * h * 4} bytes for ${w}x${h} RGBA, got ${out.length}`);
+  const { x0, x1, y0, y1 } = options.region ? unrotatedRegion(options.region, w, h, options.rotationDeg) : { x0: 0, x1: w, y0: 0, y1: h };
+  for (let y = y0; y < y1; y++) {
+    lumaRow(data, lumaPlane.offset + y * k * lumaPlane.stride, lumaPlane.stride, k, x0, x1, luma);
     const chromaRow = (y * k + (k >> 1)) >> 1;
     const uRow = uPlane.offset + chromaRow * uPlane.stride;
     const vRow = vPlane.offset + chromaRow * vPlane.stride;
     const { start, step } = rowPlacement(y, w, h, options.rotationDeg);
     const outStep = step * 4;
-    for (let x = 0, o = start * 4; x < w; x++, o += outStep) {
+    for (let x = x0, o = (start + x0 * step) * 4; x < x1; x++, o += outStep) {
       const yy = luma[x] * lumaScale - lumaOffset;
       const uu = data[uRow + uColumns[x]] - 128;
       const vv = data[vRow + vColumns[x]] - 128;

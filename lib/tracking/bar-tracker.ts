@@ -24,6 +24,11 @@ export interface BarTracker {
   readonly scale: number;
   /** Call once per frame in order, the first frame included; null while the bar is lost. */
   track(frame: RgbaFrame): BarSample | null;
+  /**
+   * The frame pixels the next track() call reads (clipped to the frame): a caller may fill only
+   * these, which spares converting the whole frame when nothing else looks at it.
+   */
+  nextRegion(): PixelRect;
   dispose(): void;
 }
 
@@ -152,16 +157,36 @@ class NccBarTracker implements BarTracker {
     });
   }
 
-  /** Pyramid of the region that holds every template position within `searchPx` of (x, y). */
-  private pyramidAround(frame: RgbaFrame, x: number, y: number, searchPx: number, factors: number[]): GrayImage[] {
+  /** The region that holds every template position within `searchPx` of (x, y). */
+  private regionAround(x: number, y: number, searchPx: number, factors: number[]): PixelRect {
     const coarse = factors[factors.length - 1];
     const reach = searchPx + this.radiusPx * this.plateScale + 3 * coarse;
     const x0 = Math.max(0, Math.floor((x - reach) / coarse) * coarse);
     const y0 = Math.max(0, Math.floor((y - reach) / coarse) * coarse);
     const x1 = Math.min(this.width, Math.ceil((x + reach) / coarse) * coarse);
     const y1 = Math.min(this.height, Math.ceil((y + reach) / coarse) * coarse);
-    const rect: PixelRect = { x: x0, y: y0, width: x1 - x0, height: y1 - y0 };
-    return buildPyramid(grayRegion(frame, rect, factors[0]), factors.length);
+    return { x: x0, y: y0, width: Math.max(0, x1 - x0), height: Math.max(0, y1 - y0) };
+  }
+
+  private pyramidAround(frame: RgbaFrame, x: number, y: number, searchPx: number, factors: number[]): GrayImage[] {
+    return buildPyramid(grayRegion(frame, this.regionAround(x, y, searchPx, factors), factors[0]), factors.length);
+  }
+
+  /** Where the next frame is searched: around the constant-velocity guess, wider while lost. */
+  private nextSearch(): { x: number; y: number; searchPx: number } {
+    const radiusPx = this.radiusPx * this.plateScale;
+    const searchPx = Math.min(
+      TUNING.searchRadiusFraction * radiusPx * (1 + this.lostFrames),
+      TUNING.maxSearchRadiusFactor * radiusPx,
+    );
+    return { x: this.x + this.vx, y: this.y + this.vy, searchPx };
+  }
+
+  nextRegion(): PixelRect {
+    const levels = this.levels;
+    if (!levels) throw new Error("bar tracker: nextRegion() called after dispose()");
+    const { x, y, searchPx } = this.nextSearch();
+    return this.regionAround(x, y, searchPx, levels.map((l) => l.factor));
   }
 
   track(frame: RgbaFrame): BarSample | null {
@@ -172,13 +197,7 @@ class NccBarTracker implements BarTracker {
         `frame: expected ${this.width}x${this.height} RGBA (${this.width * this.height * 4} bytes), got ${frame.width}x${frame.height} with ${frame.data.length} bytes`,
       );
     }
-    const predictedX = this.x + this.vx;
-    const predictedY = this.y + this.vy;
-    const radiusPx = this.radiusPx * this.plateScale;
-    const searchPx = Math.min(
-      TUNING.searchRadiusFraction * radiusPx * (1 + this.lostFrames),
-      TUNING.maxSearchRadiusFactor * radiusPx,
-    );
+    const { x: predictedX, y: predictedY, searchPx } = this.nextSearch();
     const pyramid = this.pyramidAround(frame, predictedX, predictedY, searchPx, levels.map((l) => l.factor));
     const found = this.locate(pyramid, levels, predictedX, predictedY, searchPx);
     const needed = this.lostFrames > 0 ? TUNING.reacquireScore : TUNING.keepScore;

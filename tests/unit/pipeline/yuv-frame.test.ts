@@ -2,7 +2,17 @@
 // same frame: a smooth colour gradient from ffmpeg's own `gradients` source.
 import { execFile } from "node:child_process";
 import { beforeAll, describe, expect, it } from "vitest";
-import { shrinkFactor, shrunkSize, yuvToRgba, type YuvFrame, type YuvMatrix } from "@/lib/pipeline/yuv-frame";
+import {
+  planesAsIfWhole,
+  shrinkFactor,
+  shrunkSize,
+  sourceCrop,
+  yuvToRgba,
+  type QuarterTurn,
+  type YuvFrame,
+  type YuvMatrix,
+} from "@/lib/pipeline/yuv-frame";
+import type { PixelRect } from "@/lib/tracking";
 
 async function ffmpegBytes(args: string[], input?: Uint8Array): Promise<Uint8Array> {
   const child = execFile("ffmpeg", ["-hide_banner", "-loglevel", "error", ...args, "pipe:1"], { encoding: "buffer", maxBuffer: 64 << 20 });
@@ -126,6 +136,69 @@ describe("yuvToRgba", () => {
     const options = { factor: 2, rotationDeg: 0 as const, matrix: "bt709" as const, fullRange: false };
     expect(yuvToRgba(nv12(yuv, 14), options).data).toEqual(yuvToRgba(i420(yuv), options).data);
   });
+
+  /** What WebCodecs' copyTo with a rect gives: the crop's planes, tightly packed. */
+  function copyCrop(frame: YuvFrame, crop: PixelRect): YuvFrame {
+    const rows: { plane: number; y: number; x: number; bytes: number }[] = [];
+    for (let y = 0; y < crop.height; y++) rows.push({ plane: 0, y: crop.y + y, x: crop.x, bytes: crop.width });
+    const chromaPlanes = frame.format === "I420" ? [1, 2] : [1];
+    const chromaBytes = frame.format === "I420" ? crop.width / 2 : crop.width;
+    const chromaX = frame.format === "I420" ? crop.x / 2 : crop.x;
+    for (const plane of chromaPlanes) {
+      for (let y = 0; y < crop.height / 2; y++) rows.push({ plane, y: crop.y / 2 + y, x: chromaX, bytes: chromaBytes });
+    }
+    const data = new Uint8Array(rows.reduce((n, r) => n + r.bytes, 0));
+    const planes: { offset: number; stride: number }[] = [];
+    let at = 0;
+    for (const row of rows) {
+      if (!planes[row.plane]) planes[row.plane] = { offset: at, stride: row.bytes };
+      const source = frame.planes[row.plane];
+      const start = source.offset + row.y * source.stride + row.x;
+      data.set(frame.data.subarray(start, start + row.bytes), at);
+      at += row.bytes;
+    }
+    return { ...frame, data, planes };
+  }
+
+  it.each([
+    { format: "I420" as const, factor: 2, rotationDeg: 0 as QuarterTurn },
+    { format: "I420" as const, factor: 3, rotationDeg: 90 as QuarterTurn },
+    { format: "NV12" as const, factor: 3, rotationDeg: 180 as QuarterTurn },
+    { format: "NV12" as const, factor: 1, rotationDeg: 270 as QuarterTurn },
+    { format: "I420" as const, factor: 5, rotationDeg: 0 as QuarterTurn },
+  ])(
+    "converts only a region, from a cropped copy, exactly as the whole frame ($format, factor $factor, $rotationDeg°)",
+    ({ format, factor, rotationDeg }) => {
+      const whole = format === "I420" ? i420(yuv) : nv12(yuv, 6);
+      const options = { factor, rotationDeg, matrix: "bt709" as const, fullRange: false };
+      const reference = yuvToRgba(whole, options);
+      // An odd-placed window reaching past the right edge, as the tracker's may near a border.
+      const region = { x: Math.floor(reference.width * 0.55) + 1, y: Math.floor(reference.height * 0.3) + 1, width: reference.width, height: 13 };
+      const crop = sourceCrop(W, H, region, factor, rotationDeg);
+      expect(crop.x % 2).toBe(0);
+      expect(crop.y % 2).toBe(0);
+      expect(crop.width * crop.height).toBeLessThan((W * H) / 2);
+      const copy = copyCrop(whole, crop);
+      const into = new Uint8ClampedArray(reference.data.length).fill(7);
+      const partial = yuvToRgba({ ...copy, planes: planesAsIfWhole(format, copy.planes, crop) }, { ...options, region, into });
+      expect(partial.data).toBe(into);
+      let inside = 0;
+      let wrongInside = 0;
+      let touchedOutside = 0;
+      for (let y = 0; y < reference.height; y++) {
+        for (let x = 0; x < reference.width; x++) {
+          const isInside = x >= region.x && x < region.x + region.width && y >= region.y && y < region.y + region.height;
+          if (isInside) inside++;
+          for (let c = 0, i = (y * reference.width + x) * 4; c < 4; c++, i++) {
+            if (isInside && partial.data[i] !== reference.data[i]) wrongInside++;
+            if (!isInside && partial.data[i] !== 7) touchedOutside++;
+          }
+        }
+      }
+      expect({ wrongInside, touchedOutside }).toEqual({ wrongInside: 0, touchedOutside: 0 });
+      expect(inside).toBeGreaterThan(0);
+    },
+  );
 
   it("rejects a factor that is not a whole number", () => {
     expect(() => yuvToRgba(i420(yuv), { factor: 1.5, rotationDeg: 0, matrix: "bt709", fullRange: false })).toThrow(/whole number/);

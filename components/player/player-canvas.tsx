@@ -14,6 +14,9 @@ import { ShapeNode } from "@/components/markup/shape-node";
 import { readPalette, type Palette } from "@/components/markup/style";
 import type { MarkupInteraction } from "@/components/markup/use-markup-interaction";
 
+/** HTMLMediaElement.HAVE_CURRENT_DATA: the frame at the current position is decoded. */
+const HAVE_CURRENT_DATA = 2;
+
 const PHASE_COLOUR: Record<Phase, keyof Palette> = {
   eccentric: "eccentric",
   concentric: "phase-concentric",
@@ -172,6 +175,13 @@ export default function PlayerCanvas(props: PlayerCanvasProps) {
     transformOrigin: "0 0",
   };
   const stroke = 2.5 * pxPerScreenPx;
+  const { onVideoReady } = props;
+  useEffect(() => {
+    // A clip the browser had already loaded before the element's listener existed fires no further
+    // `loadeddata`: ask the element itself once the URL is set.
+    if ((videoRef.current?.readyState ?? 0) >= HAVE_CURRENT_DATA) onVideoReady();
+    // Only a new URL can make a new clip ready; the callback's identity changes on every render.
+  }, [videoUrl, videoRef]);
 
   return (
     <div ref={containerRef} className="relative w-full touch-none select-none overflow-hidden rounded-lg bg-sunken" style={{ aspectRatio: `${widthPx} / ${heightPx}` }}>
@@ -185,6 +195,7 @@ export default function PlayerCanvas(props: PlayerCanvasProps) {
           playsInline
           preload="auto"
           onLoadedData={props.onVideoReady}
+          onCanPlay={props.onVideoReady}
           onError={props.onVideoError}
           data-testid="player-video"
         />

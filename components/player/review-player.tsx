@@ -210,6 +210,9 @@ export function ReviewPlayer({ setId, canEditMarkup, seekRequest, onFrameChange 
       aria-label="Clip player. Arrow keys step one frame; space plays and pauses."
       data-testid="review-player"
       data-ready={ready}
+      data-video-ready={videoReady}
+      data-frame-count={timestamps.length}
+      data-markup-loaded={markup.loaded}
       data-can-edit={markup.canEdit}
     >
       {widthPx > 0 && heightPx > 0 ? (

@@ -83,7 +83,15 @@ async function analysedSet(request: APIRequestContext, clipPath: string): Promis
 
 async function openReview(page: Page): Promise<void> {
   await page.goto(`/app/sets/${setId}/review`);
-  await page.locator('[data-testid="review-player"][data-ready="true"]').waitFor({ timeout: 60_000 });
+  await page
+    .locator('[data-testid="review-player"][data-ready="true"]')
+    .waitFor({ timeout: 60_000 })
+    .catch(async (error: Error) => {
+      // Say which part never arrived: the clip, the frame times or the markup.
+      const player = page.getByTestId("review-player");
+      const parts = ["data-video-ready", "data-frame-count", "data-markup-loaded"].map(async (name) => `${name}=${await player.getAttribute(name)}`);
+      throw new Error(`the player never became ready (${(await Promise.all(parts)).join(", ")}): ${error.message}`);
+    });
 }
 
 /** Focuses the player and steps to a frame with the arrow keys; waits until the video presents it. */

@@ -195,7 +195,6 @@ export default function PlayerCanvas(props: PlayerCanvasProps) {
           playsInline
           preload="auto"
           onLoadedData={props.onVideoReady}
-          onCanPlay={props.onVideoReady}
           onError={props.onVideoError}
           data-testid="player-video"
         />

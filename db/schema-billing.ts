@@ -2,11 +2,11 @@
 // provider's invoices and one-off payments, and every webhook event received. Money is integer minor units
 // (cents) beside an ISO 4217 currency code; never floating point.
 import { relations, sql } from "drizzle-orm";
-import { boolean, check, index, integer, jsonb, pgEnum, pgTable, text, timestamp, unique, uniqueIndex, uuid } from "drizzle-orm/pg-core";
+import { boolean, check, index, integer, jsonb, pgEnum, pgTable, text, unique, uniqueIndex, uuid } from "drizzle-orm/pg-core";
+import { timestamptz } from "./columns";
 import { user, teams } from "./schema";
 import { BILLING_STATUSES, PAYMENT_STATUSES, PRICE_KINDS } from "../lib/billing/constants";
 
-const timestamptz = (name: string) => timestamp(name, { withTimezone: true });
 
 export const priceKindEnum = pgEnum("price_kind", PRICE_KINDS);
 export const billingStatusEnum = pgEnum("billing_status", BILLING_STATUSES);

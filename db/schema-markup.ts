@@ -3,11 +3,11 @@
 // before the server has seen it; `revision` orders writes (last write wins per shape); deletion is a
 // tombstone so a late, older write cannot bring a deleted shape back.
 import { relations, sql } from "drizzle-orm";
-import { check, doublePrecision, index, integer, jsonb, pgEnum, pgTable, text, timestamp, uuid } from "drizzle-orm/pg-core";
+import { check, doublePrecision, index, integer, jsonb, pgEnum, pgTable, text, uuid } from "drizzle-orm/pg-core";
+import { timestamptz } from "./columns";
 import { sets, user } from "./schema";
 import { MARKUP_KINDS, type MarkupGeometry, type MarkupStyle } from "../lib/validation/markup";
 
-const timestamptz = (name: string) => timestamp(name, { withTimezone: true });
 
 export const markupKindEnum = pgEnum("markup_kind", MARKUP_KINDS);
 

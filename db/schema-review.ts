@@ -11,20 +11,13 @@ import {
   pgEnum,
   pgTable,
   text,
-  timestamp,
   uniqueIndex,
   uuid,
 } from "drizzle-orm/pg-core";
+import { createdAt, timestamptz, updatedAt } from "./columns";
 import { sets, teams, user } from "./schema";
 import { STORED_REVIEW_STATUSES, type ReviewCue } from "../lib/validation/review";
 
-const timestamptz = (name: string) => timestamp(name, { withTimezone: true });
-const createdAt = () => timestamptz("created_at").defaultNow().notNull();
-const updatedAt = () =>
-  timestamptz("updated_at")
-    .defaultNow()
-    .$onUpdate(() => new Date())
-    .notNull();
 
 export const reviewStatusEnum = pgEnum("review_status", STORED_REVIEW_STATUSES);
 

@@ -16,21 +16,14 @@ import {
   primaryKey,
   real,
   text,
-  timestamp,
   unique,
   uniqueIndex,
   uuid,
 } from "drizzle-orm/pg-core";
+import { createdAt, timestamptz, updatedAt } from "./columns";
 import { CAMERA_VIEWS, LIFTS, MEMBERSHIP_ROLES, UNIT_PREFERENCES } from "../lib/validation/common";
 import { CLIP_STATUSES, SET_STATUSES } from "../lib/validation/set";
 
-const timestamptz = (name: string) => timestamp(name, { withTimezone: true });
-const createdAt = () => timestamptz("created_at").defaultNow().notNull();
-const updatedAt = () =>
-  timestamptz("updated_at")
-    .defaultNow()
-    .$onUpdate(() => new Date())
-    .notNull();
 
 export const liftEnum = pgEnum("lift", LIFTS);
 export const cameraViewEnum = pgEnum("camera_view", CAMERA_VIEWS);

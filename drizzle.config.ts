@@ -1,7 +1,7 @@
 // drizzle-kit settings: `npm run db:generate` writes SQL migrations from db/schema.ts and the
 // area schemas beside it (db/schema-<area>.ts) into drizzle/ (committed).
 import { defineConfig } from "drizzle-kit";
-import { databaseUrl } from "./lib/dev/database-url";
+import { databaseUrl } from "./scripts/database-url";
 
 export default defineConfig({
   dialect: "postgresql",

@@ -2,7 +2,7 @@
 // kept on globalThis so hot reloads in development reuse it.
 import pg from "pg";
 import { drizzle, type NodePgDatabase } from "drizzle-orm/node-postgres";
-import { databaseUrl } from "@/lib/dev/database-url";
+import { databaseUrl } from "@/scripts/database-url";
 import * as baseSchema from "./schema";
 import * as billingSchema from "./schema-billing";
 import * as reviewSchema from "./schema-review";

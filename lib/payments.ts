@@ -1,5 +1,5 @@
 // The payment provider adapter: the official Stripe SDK, configured from the environment. Locally it points at
-// lib/dev/stripe-fake.ts (STRIPE_API_HOST/PORT/PROTOCOL); the real provider needs only real keys and no host.
+// dev/fakes/stripe-fake.ts (STRIPE_API_HOST/PORT/PROTOCOL); the real provider needs only real keys and no host.
 //   STRIPE_SECRET_KEY      API key (sk_…)
 //   STRIPE_WEBHOOK_SECRET  signing secret of the webhook endpoint (whsec_…)
 //   STRIPE_API_HOST, STRIPE_API_PORT, STRIPE_API_PROTOCOL  another API base (the local fake); unset for the real one

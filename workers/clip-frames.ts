@@ -153,7 +153,7 @@ export async function* clipFrames(clip: OpenClip, reader: FrameReader): AsyncGen
   }
 }
 
-/** The decode worker's bundle, beside the analysis worker's (lib/dev/build-worker.ts). */
+/** The decode worker's bundle, beside the analysis worker's (scripts/build-worker.ts). */
 export const DECODE_WORKER_FILE = "decode-worker.js";
 
 /**

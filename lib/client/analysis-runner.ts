@@ -16,7 +16,7 @@ import type { FrameDecoder } from "@/lib/clips/decoder-choice";
 import { MODEL_FILES } from "@/lib/pose/model-manifest";
 import { readClipTimeline, VideoElementError, VideoElementFrames } from "./video-element-frames";
 
-/** Where lib/dev/build-worker.ts puts the bundled worker. */
+/** Where scripts/build-worker.ts puts the bundled worker. */
 const ANALYSIS_WORKER_URL = "/workers/analyse-worker.js";
 
 export class AnalysisRunError extends Error {
@@ -85,7 +85,7 @@ export function startAnalysis(request: AnalysisRequest, onProgress: (progress: P
       return new Promise<void>((resolve) => this.waiters.push(resolve));
     },
   };
-  // Bundled apart by lib/dev/build-worker.ts into public/ (Next's bundler cannot bundle the pose models' code).
+  // Bundled apart by scripts/build-worker.ts into public/ (Next's bundler cannot bundle the pose models' code).
   const worker = new Worker(ANALYSIS_WORKER_URL, { type: "module" });
   let settle: { resolve: (r: ResultMessage) => void; reject: (e: Error) => void } | null = null;
   const result = new Promise<ResultMessage>((resolve, reject) => (settle = { resolve, reject }));

@@ -1,7 +1,7 @@
 // Enqueues jobs from route handlers, inside the caller's database transaction (see requestClipConversion).
 import "server-only";
 import type PgBoss from "pg-boss";
-import { databaseUrl } from "@/lib/dev/database-url";
+import { databaseUrl } from "@/scripts/database-url";
 import type { SqlExecutor } from "@/db/queries/clips";
 import { CONVERT_CLIP_QUEUE, createBoss, startBoss, type ConvertClipJob } from "./queue";
 

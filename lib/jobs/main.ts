@@ -1,6 +1,6 @@
 // Entry point of the job runner process: `node --conditions=react-server --import tsx lib/jobs/main.ts`
 // (the react-server condition lets it load the server-only query modules). Reads DATABASE_URL and S3_*.
-import { databaseUrl } from "@/lib/dev/database-url";
+import { databaseUrl } from "@/scripts/database-url";
 import { startJobRunner } from "./runner";
 
 const runner = await startJobRunner(databaseUrl());

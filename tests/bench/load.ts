@@ -12,10 +12,10 @@ import autocannon from "autocannon";
 import pg from "pg";
 import { analyseTrack } from "@/lib/analysis/analyse";
 import { parseTrack } from "@/lib/analysis/track";
-import { startFakes } from "@/lib/dev/fakes";
-import { freePort, waitForHttp } from "@/lib/dev/ports";
-import { DEMO_ATHLETES, DEMO_COACH, DEMO_PASSWORD, DEMO_TEAM_ID, seedDemoData } from "@/lib/dev/seed";
-import { freshTestDatabase } from "@/lib/dev/test-database";
+import { startFakes } from "@/dev/fakes";
+import { freePort, waitForHttp } from "@/scripts/ports";
+import { DEMO_ATHLETES, DEMO_COACH, DEMO_PASSWORD, DEMO_TEAM_ID, seedDemoData } from "@/dev/demo/seed";
+import { freshTestDatabase } from "@/scripts/test-database";
 import { generateSyntheticSet } from "@/tests/fixtures/synthetic";
 
 const repoRoot = path.resolve(import.meta.dirname, "../..");

@@ -5,7 +5,7 @@
 import { spawn } from "node:child_process";
 import path from "node:path";
 import { analysisResultSchema } from "@/lib/analysis/result";
-import { ensureModels } from "@/lib/dev/models";
+import { ensureModels } from "@/scripts/models";
 import { ensureClip, type GeneratedClip } from "@/tests/fixtures/clips/generate-clip";
 import { accuracy, describeAccuracy } from "./support/accuracy";
 import { sampleProcessTree } from "./support/process-memory";

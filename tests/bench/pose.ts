@@ -3,7 +3,7 @@
 // frame (a photo, as in a lift video: BlazePose tracks its region), and a street clip of small
 // walkers (BlazePose keeps re-running its person detector: the slow case).
 import * as tf from "@tensorflow/tfjs";
-import { ensureModels } from "@/lib/dev/models";
+import { ensureModels } from "@/scripts/models";
 import type { PoseModelId } from "@/lib/pose/constants";
 import type { RgbaFrame } from "@/lib/pose/detector";
 import { createNodePoseDetector } from "@/lib/pose/node";

@@ -4,7 +4,7 @@
 // the react-server condition (as the job runner is).
 import { spawnSync } from "node:child_process";
 import path from "node:path";
-import { freshTestDatabase } from "@/lib/dev/test-database";
+import { freshTestDatabase } from "@/scripts/test-database";
 
 const repoRoot = path.resolve(import.meta.dirname, "../..");
 

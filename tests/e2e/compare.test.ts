@@ -5,7 +5,7 @@ import { spawnSync } from "node:child_process";
 import path from "node:path";
 import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
-import { DEMO_COACH, DEMO_PASSWORD, seedDemoData } from "@/lib/dev/seed";
+import { DEMO_COACH, DEMO_PASSWORD, seedDemoData } from "@/dev/demo/seed";
 import { launchBrowser } from "./browser";
 
 const baseUrl = inject("baseUrl");

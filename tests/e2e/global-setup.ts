@@ -3,12 +3,12 @@ import { spawn, spawnSync, type ChildProcess } from "node:child_process";
 import path from "node:path";
 import type {} from "vitest";
 import type { TestProject } from "vitest/node";
-import { freshTestDatabase } from "@/lib/dev/test-database";
-import { freePort, waitForHttp } from "@/lib/dev/ports";
-import { startFakes } from "@/lib/dev/fakes";
+import { freshTestDatabase } from "@/scripts/test-database";
+import { freePort, waitForHttp } from "@/scripts/ports";
+import { startFakes } from "@/dev/fakes";
 import { spawnJobRunner } from "@/lib/jobs/spawn";
-import { buildAnalysisWorker } from "@/lib/dev/build-worker";
-import { ensureModels } from "@/lib/dev/models";
+import { buildAnalysisWorker } from "@/scripts/build-worker";
+import { ensureModels } from "@/scripts/models";
 
 declare module "vitest" {
   export interface ProvidedContext {

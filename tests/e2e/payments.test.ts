@@ -1,12 +1,12 @@
 // Paying the coach in a real Chromium against the production build: the demo coach (whose team charges a
-// monthly price, lib/dev/seed-billing.ts) invites a new address; the athlete signs up from the e-mailed link,
+// monthly price, dev/demo/seed-billing.ts) invites a new address; the athlete signs up from the e-mailed link,
 // joins, is sent to pay, pays on the payment fake's hosted checkout page, comes back to an active membership
 // and uploads a clip. People and gym are invented.
 import type { Browser, Page } from "playwright-core";
 import pg from "pg";
 import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
 import { z } from "zod";
-import { DEMO_COACH, DEMO_PASSWORD, DEMO_TEAM_ID, seedDemoData } from "@/lib/dev/seed";
+import { DEMO_COACH, DEMO_PASSWORD, DEMO_TEAM_ID, seedDemoData } from "@/dev/demo/seed";
 import { ensureClip, type GeneratedClip } from "@/tests/fixtures/clips/generate-clip";
 import { launchBrowser } from "./browser";
 

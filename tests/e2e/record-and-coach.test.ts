@@ -1,11 +1,11 @@
 // Recording in the browser and recording for someone else, in a real Chromium against the production
 // build: an athlete records a few seconds with Chromium's test camera and the recording is uploaded as
 // the set's clip; the demo coach records a set for one of the team's athletes, which becomes the
-// athlete's set, on their list and on the coach's. Demo data from lib/dev/seed.ts.
+// athlete's set, on their list and on the coach's. Demo data from dev/demo/seed.ts.
 import type { Browser, Page } from "playwright-core";
 import pg from "pg";
 import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
-import { DEMO_ATHLETES, DEMO_COACH, DEMO_PASSWORD, DEMO_TEAM_ID, seedDemoData } from "@/lib/dev/seed";
+import { DEMO_ATHLETES, DEMO_COACH, DEMO_PASSWORD, DEMO_TEAM_ID, seedDemoData } from "@/dev/demo/seed";
 import { ensureClip } from "@/tests/fixtures/clips/generate-clip";
 import { launchBrowser } from "./browser";
 
@@ -48,7 +48,7 @@ async function fillDetails(page: Page): Promise<void> {
 
 describe("recording and recording for an athlete", () => {
   it("records a clip with the camera, uploads it and opens the new set", { timeout: 180_000 }, async () => {
-    // Tobin: the demo coach comps his membership, so his uploads are never paused (lib/dev/seed-billing.ts).
+    // Tobin: the demo coach comps his membership, so his uploads are never paused (dev/demo/seed-billing.ts).
     const athlete = DEMO_ATHLETES[0];
     const page = await signedInPage(athlete);
     try {

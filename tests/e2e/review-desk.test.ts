@@ -11,7 +11,7 @@ import { z } from "zod";
 import { analyseTrack } from "@/lib/analysis/analyse";
 import { parseTrack } from "@/lib/analysis/track";
 import { CLIP_PART_BYTES } from "@/lib/clips/limits";
-import { DEMO_ATHLETES, DEMO_COACH, DEMO_PASSWORD, DEMO_TEAM_ID, seedDemoData } from "@/lib/dev/seed";
+import { DEMO_ATHLETES, DEMO_COACH, DEMO_PASSWORD, DEMO_TEAM_ID, seedDemoData } from "@/dev/demo/seed";
 import { generateSyntheticSet } from "@/tests/fixtures/synthetic";
 import { ensureClip } from "@/tests/fixtures/clips/generate-clip";
 import { launchBrowser } from "./browser";

@@ -14,7 +14,7 @@ import pg from "pg";
 import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
 import { analyseTrack } from "@/lib/analysis/analyse";
 import { parseTrack } from "@/lib/analysis/track";
-import { DEMO_ATHLETES, DEMO_COACH, DEMO_PASSWORD, DEMO_TEAM_ID, seedDemoData } from "@/lib/dev/seed";
+import { DEMO_ATHLETES, DEMO_COACH, DEMO_PASSWORD, DEMO_TEAM_ID, seedDemoData } from "@/dev/demo/seed";
 import { generateSyntheticSet, type TrackJson } from "@/tests/fixtures/synthetic";
 import { launchBrowser } from "./browser";
 

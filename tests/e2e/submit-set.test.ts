@@ -2,7 +2,7 @@
 // uploads a synthetic clip through the form (multipart, straight to the S3 fake), taps the plate on the
 // first frame, the worker analyses the clip, the result page lists the reps, PostgreSQL holds them, and
 // they agree with the command line's analysis of the same clip. A non-video and a broken video each get
-// a clear message. The gym and athlete are the invented demo data of lib/dev/seed.ts.
+// a clear message. The gym and athlete are the invented demo data of dev/demo/seed.ts.
 import { execFileSync, spawnSync } from "node:child_process";
 import { mkdtempSync, rmSync } from "node:fs";
 import { tmpdir } from "node:os";
@@ -11,7 +11,7 @@ import type { Browser, BrowserContext, Page } from "playwright-core";
 import pg from "pg";
 import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
 import { z } from "zod";
-import { DEMO_ATHLETES, DEMO_COACH, DEMO_PASSWORD, seedDemoData } from "@/lib/dev/seed";
+import { DEMO_ATHLETES, DEMO_COACH, DEMO_PASSWORD, seedDemoData } from "@/dev/demo/seed";
 import { ensureClip, type GeneratedClip } from "@/tests/fixtures/clips/generate-clip";
 import { launchBrowser } from "./browser";
 

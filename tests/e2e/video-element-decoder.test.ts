@@ -1,11 +1,11 @@
 // The <video>-element decoder in a real Chromium: with VideoDecoder removed from the page before any
 // script runs (as in a browser without WebCodecs), the analysis step decodes the demo clip with a hidden
 // <video> element and the worker analyses the frames it is sent. Its reps match those of the WebCodecs
-// path on the same clip, and the saved analysis names the decoder. Demo data from lib/dev/seed.ts.
+// path on the same clip, and the saved analysis names the decoder. Demo data from dev/demo/seed.ts.
 import type { Browser, Page } from "playwright-core";
 import pg from "pg";
 import { afterAll, beforeAll, describe, expect, inject, it } from "vitest";
-import { DEMO_ATHLETES, DEMO_PASSWORD, seedDemoData } from "@/lib/dev/seed";
+import { DEMO_ATHLETES, DEMO_PASSWORD, seedDemoData } from "@/dev/demo/seed";
 import { ensureClip, type GeneratedClip } from "@/tests/fixtures/clips/generate-clip";
 import { launchBrowser } from "./browser";
 

@@ -7,7 +7,7 @@ import { count, eq } from "drizzle-orm";
 import { closeDb, db } from "@/db";
 import { sets } from "@/db/schema";
 import { clipUploadStarts } from "@/db/schema-hardening";
-import type { MailFake } from "@/lib/dev/mail-fake";
+import type { MailFake } from "@/dev/fakes/mail-fake";
 import { storageConfig } from "@/lib/storage";
 import { PART_URL_TTL_S, READ_URL_TTL_S, presignRead, putJson } from "@/lib/clips/storage";
 import * as authRoute from "@/app/api/auth/[...all]/route";

@@ -7,7 +7,7 @@ import { readdirSync, readFileSync } from "node:fs";
 import path from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { closeDb } from "@/db";
-import type { MailFake } from "@/lib/dev/mail-fake";
+import type { MailFake } from "@/dev/fakes/mail-fake";
 import { call, startTestMail } from "./helpers";
 import { startTestStorage, type TestStorage } from "./clip-helpers";
 import { startTestPayments, type TestPayments } from "./payment-helpers";

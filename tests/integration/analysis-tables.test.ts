@@ -5,7 +5,7 @@ import { and, eq } from "drizzle-orm";
 import { closeDb, db } from "@/db";
 import { analyses, repSeries, reps, setMeasures } from "@/db/schema";
 import { createSet } from "@/db/queries/sets";
-import type { MailFake } from "@/lib/dev/mail-fake";
+import type { MailFake } from "@/dev/fakes/mail-fake";
 import { signUp, startTestMail } from "./helpers";
 
 let mail: MailFake;

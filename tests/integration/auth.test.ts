@@ -2,7 +2,7 @@
 // with mails read from the in-process mail fake; plus the /app guard in proxy.ts.
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { NextRequest } from "next/server";
-import type { MailFake } from "@/lib/dev/mail-fake";
+import type { MailFake } from "@/dev/fakes/mail-fake";
 import { closeDb } from "@/db";
 import * as me from "@/app/api/me/route";
 import { proxy } from "@/proxy";

@@ -7,7 +7,7 @@ import { tmpdir } from "node:os";
 import path from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { closeDb } from "@/db";
-import type { MailFake } from "@/lib/dev/mail-fake";
+import type { MailFake } from "@/dev/fakes/mail-fake";
 import { startJobRunner, type JobRunner } from "@/lib/jobs/runner";
 import { ensureClip } from "@/tests/fixtures/clips/generate-clip";
 import * as conversionRoute from "@/app/api/sets/[setId]/clip/conversion/route";

@@ -4,7 +4,7 @@ import { mkdtempSync, rmSync } from "node:fs";
 import { tmpdir } from "node:os";
 import path from "node:path";
 import { expect } from "vitest";
-import { startS3Fake } from "@/lib/dev/s3-fake";
+import { startS3Fake } from "@/dev/fakes/s3-fake";
 import { CLIP_PART_BYTES } from "@/lib/clips/limits";
 import * as setsRoute from "@/app/api/sets/route";
 import * as clipRoute from "@/app/api/sets/[setId]/clip/route";

@@ -9,7 +9,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { eq } from "drizzle-orm";
 import { closeDb, db } from "@/db";
 import { sets } from "@/db/schema";
-import type { MailFake } from "@/lib/dev/mail-fake";
+import type { MailFake } from "@/dev/fakes/mail-fake";
 import { ensureClip } from "@/tests/fixtures/clips/generate-clip";
 import { objectSize } from "@/lib/clips/storage";
 import * as clipRoute from "@/app/api/sets/[setId]/clip/route";

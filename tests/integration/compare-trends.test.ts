@@ -10,7 +10,7 @@ import { ApiError } from "@/lib/errors";
 import * as exportRoute from "@/app/api/exports/reps/route";
 import * as preferencesRoute from "@/app/api/preferences/route";
 import { createAnalysedSet, viewerFor, type AnalysedSet } from "@/tests/fixtures/analysed-set";
-import type { MailFake } from "@/lib/dev/mail-fake";
+import type { MailFake } from "@/dev/fakes/mail-fake";
 import { buildWorld, call, json, startTestMail, type World } from "./helpers";
 
 let mail: MailFake;

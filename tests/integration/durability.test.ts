@@ -11,7 +11,7 @@ import { ListObjectsV2Command } from "@aws-sdk/client-s3";
 import { closeDb, db } from "@/db";
 import { analyses, repSeries, reps, setMeasures, sets } from "@/db/schema";
 import { s3Client, storageConfig } from "@/lib/storage";
-import type { MailFake } from "@/lib/dev/mail-fake";
+import type { MailFake } from "@/dev/fakes/mail-fake";
 import { analyseTrack } from "@/lib/analysis/analyse";
 import { parseTrack } from "@/lib/analysis/track";
 import { generateSyntheticSet } from "@/tests/fixtures/synthetic";

@@ -2,7 +2,7 @@
 // better-auth route, and calls into route handlers with constructed Requests (no HTTP server, no mocks).
 import { randomUUID } from "node:crypto";
 import { eq } from "drizzle-orm";
-import { startMailFake, type CaughtMessage, type MailFake } from "@/lib/dev/mail-fake";
+import { startMailFake, type CaughtMessage, type MailFake } from "@/dev/fakes/mail-fake";
 import { db } from "@/db";
 import { memberships, user } from "@/db/schema";
 import { createTeam } from "@/db/queries/teams";

@@ -11,7 +11,7 @@ import { count, eq } from "drizzle-orm";
 import { closeDb, db } from "@/db";
 import { analyses, athleteProfiles, invitations, memberships, oneRepMaxes, reps, sets, teams, trainingSessions } from "@/db/schema";
 import { clipUploadStarts } from "@/db/schema-hardening";
-import type { MailFake } from "@/lib/dev/mail-fake";
+import type { MailFake } from "@/dev/fakes/mail-fake";
 import * as setsRoute from "@/app/api/sets/route";
 import * as setRoute from "@/app/api/sets/[setId]/route";
 import * as teamsRoute from "@/app/api/teams/route";

@@ -2,7 +2,7 @@
 // expiry, reuse, revoke, resend (with its rate limit), validation errors and who may do each.
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { eq } from "drizzle-orm";
-import type { MailFake } from "@/lib/dev/mail-fake";
+import type { MailFake } from "@/dev/fakes/mail-fake";
 import { closeDb, db } from "@/db";
 import { invitations } from "@/db/schema";
 import * as invite from "@/app/api/teams/[teamId]/invitations/route";

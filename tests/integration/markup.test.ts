@@ -6,7 +6,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { eq } from "drizzle-orm";
 import { closeDb, db } from "@/db";
 import { markupShapes } from "@/db/schema-markup";
-import type { MailFake } from "@/lib/dev/mail-fake";
+import type { MailFake } from "@/dev/fakes/mail-fake";
 import * as listRoute from "@/app/api/sets/[setId]/markup/route";
 import * as shapeRoute from "@/app/api/sets/[setId]/markup/[shapeId]/route";
 import { buildWorld, call, json, startTestMail, type TestPerson, type World } from "./helpers";

@@ -3,7 +3,7 @@
 import http from "node:http";
 import type { AddressInfo } from "node:net";
 import Stripe from "stripe";
-import { startStripeFake, FAKE_WEBHOOK_SECRET, type StripeFake, type StripeFakeOptions } from "@/lib/dev/stripe-fake";
+import { startStripeFake, FAKE_WEBHOOK_SECRET, type StripeFake, type StripeFakeOptions } from "@/dev/fakes/stripe-fake";
 import * as webhookRoute from "@/app/api/payments/webhook/route";
 import { BASE_URL } from "./helpers";
 

@@ -5,7 +5,7 @@
 import { readFileSync } from "node:fs";
 import { and, count, eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import type { MailFake } from "@/lib/dev/mail-fake";
+import type { MailFake } from "@/dev/fakes/mail-fake";
 import { closeDb, db } from "@/db";
 import { billingMemberships, payments, webhookEvents } from "@/db/schema-billing";
 import { membershipAccess, useReviewCredit } from "@/db/queries/billing";

@@ -1,6 +1,6 @@
 // GET/PUT /api/profile: saving, replacing and validating the athlete profile (SI units stored).
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import type { MailFake } from "@/lib/dev/mail-fake";
+import type { MailFake } from "@/dev/fakes/mail-fake";
 import { closeDb } from "@/db";
 import * as profile from "@/app/api/profile/route";
 import * as me from "@/app/api/me/route";

@@ -9,7 +9,7 @@ import { setShares } from "@/db/schema-review";
 import { saveAnalysis } from "@/db/queries/analyses";
 import { analyseTrack } from "@/lib/analysis/analyse";
 import { parseTrack } from "@/lib/analysis/track";
-import type { MailFake } from "@/lib/dev/mail-fake";
+import type { MailFake } from "@/dev/fakes/mail-fake";
 import { generateSyntheticSet } from "@/tests/fixtures/synthetic";
 import * as deskRoute from "@/app/api/desk/route";
 import * as reviewRoute from "@/app/api/sets/[setId]/review/route";

@@ -13,7 +13,7 @@ import { analyseTrack } from "@/lib/analysis/analyse";
 import { parseTrack } from "@/lib/analysis/track";
 import type { AnalysisResult } from "@/lib/analysis/result";
 import { s3Client, storageConfig } from "@/lib/storage";
-import type { MailFake } from "@/lib/dev/mail-fake";
+import type { MailFake } from "@/dev/fakes/mail-fake";
 import { generateSyntheticSet, type TrackJson } from "@/tests/fixtures/synthetic";
 import { ensureClip } from "@/tests/fixtures/clips/generate-clip";
 import * as analysisRoute from "@/app/api/sets/[setId]/analysis/route";

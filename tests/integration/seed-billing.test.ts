@@ -2,11 +2,11 @@
 // adds nothing; the lapsed athlete can read her sets but not file new ones.
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { count } from "drizzle-orm";
-import type { MailFake } from "@/lib/dev/mail-fake";
+import type { MailFake } from "@/dev/fakes/mail-fake";
 import { closeDb, db } from "@/db";
 import { billingMemberships, payments, teamPrices } from "@/db/schema-billing";
 import { membershipAccess } from "@/db/queries/billing";
-import { DEMO_ATHLETES, DEMO_PASSWORD, DEMO_TEAM_ID, seedDemoData } from "@/lib/dev/seed";
+import { DEMO_ATHLETES, DEMO_PASSWORD, DEMO_TEAM_ID, seedDemoData } from "@/dev/demo/seed";
 import * as setsRoute from "@/app/api/sets/route";
 import { call, cookiesFrom, json, signIn, startTestMail } from "./helpers";
 

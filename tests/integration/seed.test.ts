@@ -4,7 +4,7 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { and, count, eq, inArray } from "drizzle-orm";
 import { linearRegression } from "simple-statistics";
-import type { MailFake } from "@/lib/dev/mail-fake";
+import type { MailFake } from "@/dev/fakes/mail-fake";
 import { closeDb, db } from "@/db";
 import {
   account,
@@ -24,9 +24,9 @@ import {
 import { setComments, setReviews } from "@/db/schema-review";
 import { getAnalysis } from "@/db/queries/analyses";
 import { getJson, objectSize } from "@/lib/clips/storage";
-import { DEMO_ATHLETES, DEMO_COACH, DEMO_INVITATION_TOKEN, DEMO_OPERATOR, DEMO_PASSWORD, DEMO_TEAM_ID, seedDemoData } from "@/lib/dev/seed";
-import { DEMO_ANALYSIS_MODEL, DEMO_ANALYSIS_NOTE, demoSetId, demoTrainingPlan, demoWaitingSetIds } from "@/lib/dev/seed-sets";
-import { DEMO_WEEKS } from "@/lib/dev/demo-training";
+import { DEMO_ATHLETES, DEMO_COACH, DEMO_INVITATION_TOKEN, DEMO_OPERATOR, DEMO_PASSWORD, DEMO_TEAM_ID, seedDemoData } from "@/dev/demo/seed";
+import { DEMO_ANALYSIS_MODEL, DEMO_ANALYSIS_NOTE, demoSetId, demoTrainingPlan, demoWaitingSetIds } from "@/dev/demo/seed-sets";
+import { DEMO_WEEKS } from "@/dev/demo/demo-training";
 import { startTestStorage, type TestStorage } from "./clip-helpers";
 import * as roster from "@/app/api/teams/[teamId]/roster/route";
 import * as lookup from "@/app/api/invitations/[token]/route";

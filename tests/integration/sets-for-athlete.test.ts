@@ -1,7 +1,7 @@
 // POST /api/sets with an athleteId: a coach records a set for an athlete of a team they coach (admins for
 // anyone on a team); everyone else is refused, and a set recorded for an athlete is the athlete's.
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import type { MailFake } from "@/lib/dev/mail-fake";
+import type { MailFake } from "@/dev/fakes/mail-fake";
 import { closeDb } from "@/db";
 import * as setsRoute from "@/app/api/sets/route";
 import { buildWorld, call, json, startTestMail, type TestPerson, type World } from "./helpers";

@@ -1,7 +1,7 @@
 // /api/sets and /api/sets/[setId]: recording set metadata and the read rules —
 // an athlete reads their own sets, a coach their team's, nobody another team's, an admin everything.
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import type { MailFake } from "@/lib/dev/mail-fake";
+import type { MailFake } from "@/dev/fakes/mail-fake";
 import { closeDb } from "@/db";
 import * as setsRoute from "@/app/api/sets/route";
 import * as setRoute from "@/app/api/sets/[setId]/route";

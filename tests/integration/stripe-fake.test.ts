@@ -5,7 +5,7 @@ import { tmpdir } from "node:os";
 import path from "node:path";
 import Stripe from "stripe";
 import { afterAll, describe, expect, it } from "vitest";
-import { startStripeFake, FAKE_SECRET_KEY, type StripeFake } from "@/lib/dev/stripe-fake";
+import { startStripeFake, FAKE_SECRET_KEY, type StripeFake } from "@/dev/fakes/stripe-fake";
 
 const directory = mkdtempSync(path.join(tmpdir(), "plumbline-stripe-fake-"));
 const stateFile = path.join(directory, "state.json");

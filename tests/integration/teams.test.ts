@@ -1,6 +1,6 @@
 // /api/me, creating teams, the coach's roster and removing an athlete — each access rule allowed and refused.
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import type { MailFake } from "@/lib/dev/mail-fake";
+import type { MailFake } from "@/dev/fakes/mail-fake";
 import { closeDb } from "@/db";
 import * as me from "@/app/api/me/route";
 import * as teamsRoute from "@/app/api/teams/route";

@@ -2,7 +2,7 @@
 // through saveAnalysis) and prints `{ setId, repIds }`. Run with the react-server condition and DATABASE_URL
 // pointing at the browser tests' database.
 import { closeDb } from "@/db";
-import { DEMO_ATHLETES, DEMO_TEAM_ID } from "@/lib/dev/seed";
+import { DEMO_ATHLETES, DEMO_TEAM_ID } from "@/dev/demo/seed";
 import { createAnalysedSet, viewerFor } from "@/tests/fixtures/analysed-set";
 
 const athlete = viewerFor(DEMO_ATHLETES[0]);

@@ -1,7 +1,7 @@
 // The payment fake reads request bodies the way the provider's API does: form-encoded with bracketed keys,
 // as the official SDK sends them (`line_items[0][price]=…`, `metadata[teamId]=…`).
 import { describe, expect, it } from "vitest";
-import { parseForm } from "@/lib/dev/stripe-fake";
+import { parseForm } from "@/dev/fakes/stripe-fake";
 
 describe("parseForm", () => {
   it("nests bracketed keys into objects and arrays", () => {

@@ -12,7 +12,7 @@ import {
   VELOCITY_AT_60_PCT_MPS,
   velocityAtMps,
   type DemoLifterInput,
-} from "@/lib/dev/demo-training";
+} from "@/dev/demo/demo-training";
 
 const lifters: DemoLifterInput[] = [
   { athleteId: "demo-athlete-tobin", statureM: 1.83, oneRepMaxesKg: { squat: 210, bench: 140, deadlift: 245 } },

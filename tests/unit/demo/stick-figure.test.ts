@@ -12,7 +12,7 @@ import {
   drawLifter,
   gymBackground,
   type FigurePose,
-} from "@/lib/dev/stick-figure";
+} from "@/dev/demo/stick-figure";
 
 const rgbAt = (frame: ReturnType<typeof createFrame>, x: number, y: number) => {
   const p = 4 * (y * frame.width + x);

@@ -4,7 +4,7 @@ import { mkdtemp, readFile, rm, writeFile } from "node:fs/promises";
 import os from "node:os";
 import path from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { ensureModels } from "@/lib/dev/models";
+import { ensureModels } from "@/scripts/models";
 import { TFJS_WASM_FILES } from "@/lib/pose/constants";
 import { MODEL_FILES } from "@/lib/pose/model-manifest";
 

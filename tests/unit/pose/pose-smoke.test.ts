@@ -6,7 +6,7 @@ import { cp, mkdtemp, rm, truncate } from "node:fs/promises";
 import os from "node:os";
 import path from "node:path";
 import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
-import { ensureModels } from "@/lib/dev/models";
+import { ensureModels } from "@/scripts/models";
 import { POSE_MODEL_KEYPOINT_NAMES, type PoseModelId } from "@/lib/pose/constants";
 import type { DetectedPose, PoseDetector, RgbaFrame } from "@/lib/pose/detector";
 import { createNodePoseDetector, NODE_MODELS_DIR } from "@/lib/pose/node";

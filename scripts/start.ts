@@ -8,9 +8,9 @@ import { ensureDatabase, migrateDatabase } from "./databases";
 import { databaseUrl } from "./database-url";
 import { ensureModels } from "./models";
 import { buildAnalysisWorker } from "./build-worker";
-import { startFakes } from "./fakes";
-import { seedDemoData } from "./seed";
-import { spawnJobRunner } from "../jobs/spawn";
+import { startFakes } from "@/dev/fakes";
+import { seedDemoData } from "@/dev/demo/seed";
+import { spawnJobRunner } from "@/lib/jobs/spawn";
 import { log } from "./run";
 
 ensureSystemPackages(["postgresql", "ffmpeg"]);

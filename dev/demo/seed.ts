@@ -27,10 +27,10 @@ import {
 } from "@/db/schema";
 import type { CreateSetData } from "@/lib/validation/set";
 import type { Lift, UnitPreference } from "@/lib/validation/common";
-import { databaseUrl } from "./database-url";
-import { ensureDatabase, migrateDatabase } from "./databases";
-import { ensureLocalPostgres } from "./postgres";
-import { log } from "./run";
+import { databaseUrl } from "@/scripts/database-url";
+import { ensureDatabase, migrateDatabase } from "@/scripts/databases";
+import { ensureLocalPostgres } from "@/scripts/postgres";
+import { log } from "@/scripts/run";
 import { seedBilling } from "./seed-billing";
 import { seedDemoReviews } from "./seed-reviews";
 import { demoWaitingSetIds, seedDemoSets } from "./seed-sets";

@@ -5,7 +5,7 @@ import { migrate } from "drizzle-orm/node-postgres/migrator";
 import path from "node:path";
 import { withDatabase } from "./database-url";
 
-const migrationsFolder = path.resolve(import.meta.dirname, "../../drizzle");
+const migrationsFolder = path.resolve(import.meta.dirname, "../drizzle");
 
 function quoteIdent(name: string): string {
   if (!/^[a-z_][a-z0-9_]*$/.test(name)) throw new Error(`unsafe database name: ${name}`);

@@ -1,5 +1,5 @@
 // A local mail catcher for development and tests: an SMTP server that keeps messages in memory and a small
-// web page listing them (plus JSON at /api/messages). `tsx lib/dev/mail-fake.ts` runs it on 2525/3025.
+// web page listing them (plus JSON at /api/messages). `tsx dev/fakes/mail-fake.ts` runs it on 2525/3025.
 import http from "node:http";
 import type { AddressInfo } from "node:net";
 import { pathToFileURL } from "node:url";

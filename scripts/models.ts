@@ -11,7 +11,7 @@ import { TFJS_WASM_FILES, TFJS_WASM_FOLDER } from "@/lib/pose/constants";
 import { HUMAN_MODELS_PACKAGE, MODEL_FILES, type ModelFileEntry } from "@/lib/pose/model-manifest";
 
 const run = promisify(execFile);
-const repoRoot = path.resolve(import.meta.dirname, "../..");
+const repoRoot = path.resolve(import.meta.dirname, "..");
 
 export interface EnsureModelsOptions {
   /** Destination, `public/models` by default. */

@@ -1,5 +1,5 @@
 // The demo's analysed training history: eight weeks of squat, bench press and deadlift sets for three of
-// the Ironbark lifters (lib/dev/demo-training.ts), each analysed by the real engine from a synthetic
+// the Ironbark lifters (dev/demo/demo-training.ts), each analysed by the real engine from a synthetic
 // track with scripted motion and saved with the same writes as the app (replaceAnalysis). The newest top
 // sets also get a rendered stick-figure clip and their track in object storage, and stay unreviewed so
 // the coach's review desk has work. Idempotent: fixed set ids; a set already analysed is left alone.
@@ -20,7 +20,7 @@ import { analyseDemoScene, DEMO_ANALYSIS_NOTE, demoSyntheticOptions, type Analys
 import { startDemoAnalysisPool } from "./demo-analysis-pool";
 import { ensureDemoClip } from "./demo-clips";
 import { pickClipSets, planDemoTraining, type DemoSetPlan } from "./demo-training";
-import { log, succeeds } from "./run";
+import { log, succeeds } from "@/scripts/run";
 import { DEMO_ATHLETES, DEMO_TEAM_ID } from "./seed";
 
 /** Stands where the pose model's `id@version` goes: these keypoints were scripted, not detected. */
@@ -29,7 +29,7 @@ export { DEMO_ANALYSIS_NOTE };
 /** Sets analysed at once: enough to keep both workers busy, few enough to hold in memory. */
 const LANES = 12;
 
-/** Stable ids of the demo history's sets (a range of its own beside lib/dev/seed.ts's ids). */
+/** Stable ids of the demo history's sets (a range of its own beside dev/demo/seed.ts's ids). */
 export function demoSetId(ordinal: number): string {
   return `5e1d0c0a-7c3b-4a51-9a8e-d5${ordinal.toString(16).padStart(10, "0")}`;
 }

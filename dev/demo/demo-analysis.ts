@@ -1,6 +1,6 @@
 // One planned demo set, turned into what the browser would have sent: the synthetic track of its scripted
 // motion and the real engine's analysis of that track, noted as demo data. Runs in the seed's worker
-// threads (lib/dev/demo-analysis-worker.ts) and, for the sets that get a clip, in the seed itself.
+// threads (dev/demo/demo-analysis-worker.ts) and, for the sets that get a clip, in the seed itself.
 import { analyseParsedTrack } from "@/lib/analysis/analyse";
 import type { AnalysisResult } from "@/lib/analysis/result";
 import { parseTrack, type Track } from "@/lib/analysis/track";

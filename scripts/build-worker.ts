@@ -1,12 +1,12 @@
 // Bundles the analysis Web Worker (workers/analyse-worker.ts, with tfjs and the pose models' code) into
 // public/workers/analyse-worker.js with esbuild. Next's bundler cannot bundle pose-detection's optional
 // MediaPipe import, so the worker is built apart and the page loads it by URL. Runs before `next build`
-// and `next dev` (lib/dev/start.ts, the browser tests' global setup); `tsx lib/dev/build-worker.ts` runs it alone.
+// and `next dev` (scripts/start.ts, the browser tests' global setup); `tsx scripts/build-worker.ts` runs it alone.
 import path from "node:path";
 import { pathToFileURL } from "node:url";
 import { build } from "esbuild";
 
-const repoRoot = path.resolve(import.meta.dirname, "../..");
+const repoRoot = path.resolve(import.meta.dirname, "..");
 
 /** Where the page loads the worker from (ANALYSIS_WORKER_URL in lib/client/analysis-runner.ts). */
 const ANALYSIS_WORKER_PATH = "workers/analyse-worker.js";

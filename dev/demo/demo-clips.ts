@@ -1,5 +1,5 @@
 // Renders a demo set's clip: the synthetic scene behind its track drawn frame by frame as a stick-figure
-// lifter (lib/dev/stick-figure.ts) and encoded to H.264 mp4 by Debian's ffmpeg. Clips are cached under
+// lifter (dev/demo/stick-figure.ts) and encoded to H.264 mp4 by Debian's ffmpeg. Clips are cached under
 // .data/cache/demo-clips, keyed by what they show, so a second `npm start` reuses them.
 import { spawn } from "node:child_process";
 import { createHash } from "node:crypto";

@@ -10,7 +10,7 @@ import { databaseUrl, withDatabase } from "./database-url";
 import { databaseName, ensureDatabase } from "./databases";
 import { postgresBinDir } from "./system-packages";
 
-const repoRoot = path.resolve(import.meta.dirname, "../..");
+const repoRoot = path.resolve(import.meta.dirname, "..");
 export const BACKUP_DIR = path.join(repoRoot, ".data", "backups");
 
 /** The versioned client of Debian's postgresql package, so it matches the local server; PATH otherwise. */

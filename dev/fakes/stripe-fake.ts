@@ -2,7 +2,7 @@
 // (customers, products, prices, checkout sessions, subscriptions, invoices, billing portal sessions) with the
 // real API's request and response shapes, hosted checkout and portal pages of its own, a clock that tests can
 // advance (renewals, failed renewals, cancellations at period end) and events signed with the SDK's test header
-// helper and posted to the app's webhook URL. `tsx lib/dev/stripe-fake.ts` runs it on 12111.
+// helper and posted to the app's webhook URL. `tsx dev/fakes/stripe-fake.ts` runs it on 12111.
 import { randomBytes } from "node:crypto";
 import { existsSync, mkdirSync, readFileSync, writeFileSync } from "node:fs";
 import http from "node:http";

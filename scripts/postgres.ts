@@ -9,7 +9,7 @@ import { log, run } from "./run";
 import { ensureSystemPackages, postgresBinDir } from "./system-packages";
 import { LOCAL_PG } from "./database-url";
 
-const repoRoot = path.resolve(import.meta.dirname, "../..");
+const repoRoot = path.resolve(import.meta.dirname, "..");
 
 function isRoot(): boolean {
   return process.getuid?.() === 0;

@@ -5,7 +5,7 @@ import { availableParallelism } from "node:os";
 import path from "node:path";
 import { pathToFileURL } from "node:url";
 import { Worker } from "node:worker_threads";
-import { log } from "./run";
+import { log } from "@/scripts/run";
 import { analyseDemoSet, type AnalysedDemoSet } from "./demo-analysis";
 import type { DemoSetPlan } from "./demo-training";
 
